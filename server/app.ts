@@ -1,0 +1,127 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import connectSessionSequelize from 'connect-session-sequelize';
+import { createPassport } from './auth/passport';
+import type { AppDeps } from './deps';
+import { createCsrf } from './middlewares/csrf';
+import { apiNotFound, errorHandler } from './middlewares/error-handler';
+import { createAttemptLimiter } from './middlewares/rate-limit';
+import { sessionGuard } from './middlewares/session-guard';
+import { firmRouter } from './routes/firm/router';
+import { invitationsRouter } from './routes/invitations/router';
+import { operatorRouter } from './routes/operator/router';
+import { sessionRouter } from './routes/session/router';
+import { staffRouter } from './routes/staff/router';
+
+const SequelizeStore = connectSessionSequelize(session.Store);
+const SESSION_DAYS = 14;
+
+export interface CreatedApp {
+  app: Express;
+  /** stops the session store's timer; call at shutdown and in test teardown */
+  close(): void;
+}
+
+export function createApp(deps: AppDeps): CreatedApp {
+  const app = express();
+  app.disable('x-powered-by');
+  if (deps.secureCookies) app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          baseUri: ["'self'"],
+          connectSrc: ["'self'"],
+          fontSrc: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          objectSrc: ["'none'"],
+          scriptSrc: ["'self'"],
+          scriptSrcAttr: ["'none'"],
+          styleSrc: ["'self'"],
+          ...(deps.secureCookies ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+      strictTransportSecurity: deps.secureCookies,
+    }),
+  );
+
+  // Health answers before sessions: load balancers do not need one.
+  app.get('/api/health', async (_req, res) => {
+    try {
+      await deps.sequelize.query('SELECT 1');
+      res.json({ ok: true });
+    } catch {
+      res.status(503).json({ ok: false });
+    }
+  });
+
+  const store = new SequelizeStore({
+    db: deps.sequelize,
+    tableName: 'sessions',
+    expiration: SESSION_DAYS * 24 * 60 * 60 * 1000,
+    checkExpirationInterval: 15 * 60 * 1000,
+    extendDefaultFields: (defaults: { data: string; expires: Date }, sess: { passport?: { user?: string } }) => ({
+      data: defaults.data,
+      expires: defaults.expires,
+      userId: sess.passport?.user ?? null,
+    }),
+  });
+
+  const passport = createPassport();
+  const csrf = createCsrf(deps.sessionSecret, deps.secureCookies);
+
+  app.use('/api', express.json({ limit: '200kb' }));
+  app.use('/api', cookieParser());
+  app.use(
+    '/api',
+    session({
+      name: deps.secureCookies ? '__Host-mullion.sid' : 'mullion.sid',
+      secret: deps.sessionSecret,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: deps.secureCookies, maxAge: SESSION_DAYS * 24 * 60 * 60 * 1000, path: '/' },
+    }),
+  );
+  app.use('/api', passport.session());
+  // Order on a state-changing request: CSRF, then authentication, then authorization.
+  app.use('/api', csrf.protect);
+  app.use('/api', sessionGuard);
+
+  const signInLimiter = createAttemptLimiter(deps.rateLimits?.signIn ?? { limit: 10, windowMs: 15 * 60 * 1000 });
+  const resetLimiter = createAttemptLimiter(deps.rateLimits?.passwordReset ?? { limit: 5, windowMs: 15 * 60 * 1000 });
+
+  app.use('/api', sessionRouter(deps, { passport, csrf, signInLimiter, resetLimiter }));
+  app.use('/api', invitationsRouter(deps));
+  app.use('/api', staffRouter(deps));
+  app.use('/api', firmRouter(deps));
+  app.use('/api', operatorRouter(deps));
+  app.use('/api', apiNotFound);
+  app.use('/api', errorHandler(deps.logger));
+
+  if (deps.serveClient) serveClient(app, deps.serveClient);
+
+  return { app, close: () => store.stopExpiringSessions() };
+}
+
+/** Serves the built client: hashed assets cached long, every other path gets index.html. */
+function serveClient(app: Express, dist: string): void {
+  const index = path.join(dist, 'index.html');
+  app.use('/assets', express.static(path.join(dist, 'assets'), { immutable: true, maxAge: '365d', index: false }));
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.get('/{*splat}', (_req, res, next) => {
+    if (!fs.existsSync(index)) return next();
+    res.set('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

@@ -1,0 +1,79 @@
+/**
+ * The only reader of process.env. Checked with zod at start; a bad value stops the server
+ * with a readable list of what is wrong.
+ */
+import { z } from 'zod';
+
+const DEV_SESSION_SECRET = 'mullion-development-session-secret-not-for-production';
+const DEV_DATA_KEY = 'mullion-development-data-key-not-for-production';
+
+const schema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    APP_URL: z.url().optional(),
+    DATABASE_URL: z
+      .string()
+      .refine((v) => v.startsWith('sqlite:') || v.startsWith('postgres://') || v.startsWith('postgresql://'), {
+        message: 'DATABASE_URL is sqlite:<path> or postgres://…',
+      })
+      .optional(),
+    SESSION_SECRET: z.string().min(32, 'SESSION_SECRET needs at least 32 characters.').optional(),
+    DATA_ENCRYPTION_KEY: z.string().min(32, 'DATA_ENCRYPTION_KEY needs at least 32 characters.').optional(),
+    TENANTS_DIR: z.string().default('./tenants'),
+    SMTP_URL: z.string().optional(),
+    MAIL_FROM: z.string().default('Mullion <no-reply@mullion.localhost>'),
+    STRIPE_SECRET_KEY: z.string().optional(),
+    STRIPE_WEBHOOK_SECRET: z.string().optional(),
+    LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
+  })
+  .superRefine((v, ctx) => {
+    if (v.NODE_ENV === 'production') {
+      if (!v.SESSION_SECRET) ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required in production.' });
+      if (!v.DATA_ENCRYPTION_KEY)
+        ctx.addIssue({ code: 'custom', path: ['DATA_ENCRYPTION_KEY'], message: 'DATA_ENCRYPTION_KEY is required in production.' });
+      if (!v.APP_URL) ctx.addIssue({ code: 'custom', path: ['APP_URL'], message: 'APP_URL is required in production.' });
+    }
+  });
+
+export interface Env {
+  nodeEnv: 'development' | 'test' | 'production';
+  isProduction: boolean;
+  isTest: boolean;
+  port: number;
+  appUrl: string;
+  databaseUrl: string;
+  sessionSecret: string;
+  dataEncryptionKey: string;
+  tenantsDir: string;
+  smtpUrl: string | undefined;
+  mailFrom: string;
+  stripeSecretKey: string | undefined;
+  stripeWebhookSecret: string | undefined;
+  logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+}
+
+export function readEnv(source: Record<string, string | undefined> = process.env): Env {
+  const parsed = schema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `- ${i.path.join('.') || '(env)'}: ${i.message}`);
+    throw new Error(`Configuration is not valid:\n${lines.join('\n')}`);
+  }
+  const v = parsed.data;
+  return {
+    nodeEnv: v.NODE_ENV,
+    isProduction: v.NODE_ENV === 'production',
+    isTest: v.NODE_ENV === 'test',
+    port: v.PORT,
+    appUrl: (v.APP_URL ?? `http://localhost:${v.PORT}`).replace(/\/+$/, ''),
+    databaseUrl: v.DATABASE_URL ?? 'sqlite:data/mullion.sqlite',
+    sessionSecret: v.SESSION_SECRET ?? DEV_SESSION_SECRET,
+    dataEncryptionKey: v.DATA_ENCRYPTION_KEY ?? DEV_DATA_KEY,
+    tenantsDir: v.TENANTS_DIR,
+    smtpUrl: v.SMTP_URL || undefined,
+    mailFrom: v.MAIL_FROM,
+    stripeSecretKey: v.STRIPE_SECRET_KEY || undefined,
+    stripeWebhookSecret: v.STRIPE_WEBHOOK_SECRET || undefined,
+    logLevel: v.LOG_LEVEL,
+  };
+}

@@ -1,0 +1,104 @@
+/**
+ * The invented demo scenario: two fictional firms in a fictional county, staff of each
+ * role, and one service operator. Names, addresses and e-mails are invented (.example
+ * domains are reserved for examples).
+ */
+import type { Sequelize } from 'sequelize';
+import { trialEndsAt } from '@domain/tenant-states';
+import { hashPassword } from '../../auth/passwords';
+import { AuditEvent } from '../../models/AuditEvent';
+import { Tenant } from '../../models/Tenant';
+import { User } from '../../models/User';
+
+export const DEMO_PASSWORD = 'mullion-demo-2026';
+
+export interface DemoSignIn {
+  email: string;
+  role: string;
+  firm: string | null;
+}
+
+const FIRMS = [
+  {
+    name: 'Lanternfield Alarm Co.',
+    shortName: 'lanternfield',
+    domain: 'lanternfield.example',
+    state: 'active' as const,
+    timeZone: 'America/Chicago',
+    licenceNumber: 'AL-20417',
+    monitoringCenterName: 'Brindle County Monitoring',
+    monitoringCenterPhone: '+1 555 010 4400',
+    accentColor: '#2f5d7c',
+    staff: [
+      { name: 'Ada Kestrel', role: 'owner' as const, local: 'ada' },
+      { name: 'Marek Oduya', role: 'coordinator' as const, local: 'marek' },
+      { name: 'Priya Hollins', role: 'technician' as const, local: 'priya' },
+      { name: 'Tom Wexley', role: 'technician' as const, local: 'tom' },
+    ],
+  },
+  {
+    name: 'Tamsworth Vale Security',
+    shortName: 'tamsworth-vale',
+    domain: 'tamsworthvale.example',
+    state: 'trialing' as const,
+    timeZone: 'America/Denver',
+    licenceNumber: 'SV-3381',
+    monitoringCenterName: 'Vale Watch Center',
+    monitoringCenterPhone: '+1 555 010 7788',
+    accentColor: '#6b3f7a',
+    staff: [
+      { name: 'Gwen Tamsin', role: 'owner' as const, local: 'gwen' },
+      { name: 'Luis Ferrant', role: 'coordinator' as const, local: 'luis' },
+      { name: 'Noor Haddad', role: 'technician' as const, local: 'noor' },
+    ],
+  },
+];
+
+export const OPERATOR_EMAIL = 'operator@mullion.example';
+
+export async function isDatabaseEmpty(): Promise<boolean> {
+  return (await User.count({ crossTenant: true })) === 0;
+}
+
+export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<DemoSignIn[]> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const signIns: DemoSignIn[] = [];
+  await sequelize.transaction(async (transaction) => {
+    const operator = await User.create(
+      { tenantId: null, email: OPERATOR_EMAIL, name: 'Mullion Operator', role: 'operator', passwordHash },
+      { transaction },
+    );
+    signIns.push({ email: operator.email, role: 'operator', firm: null });
+    for (const firm of FIRMS) {
+      const created = new Date(now.getTime() - (firm.state === 'active' ? 120 : 5) * 24 * 3600 * 1000);
+      const tenant = await Tenant.create(
+        {
+          name: firm.name,
+          shortName: firm.shortName,
+          state: firm.state,
+          planKey: firm.state === 'active' ? 'crew' : null,
+          trialEndsAt: trialEndsAt(created),
+          timeZone: firm.timeZone,
+          licenceNumber: firm.licenceNumber,
+          monitoringCenterName: firm.monitoringCenterName,
+          monitoringCenterPhone: firm.monitoringCenterPhone,
+          accentColor: firm.accentColor,
+          createdAt: created,
+        },
+        { transaction },
+      );
+      for (const person of firm.staff) {
+        const user = await User.create(
+          { tenantId: tenant.id, email: `${person.local}@${firm.domain}`, name: person.name, role: person.role, passwordHash },
+          { transaction },
+        );
+        signIns.push({ email: user.email, role: person.role, firm: firm.name });
+      }
+      await AuditEvent.create(
+        { tenantId: tenant.id, actorId: null, actorRole: null, action: 'firm.created', subjectType: 'Tenant', subjectId: tenant.id, details: { demo: true }, ip: null },
+        { transaction },
+      );
+    }
+  });
+  return signIns;
+}

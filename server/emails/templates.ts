@@ -1,0 +1,62 @@
+/**
+ * The e-mails Mullion sends, as plain text and simple HTML. Wording follows our voice:
+ * plain, calm, says what to do next.
+ */
+import { ROLE_LABELS, type Role } from '@domain/roles';
+import type { MailMessage } from './mailer';
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
+
+function layout(title: string, paragraphs: string[], action: { label: string; href: string }, footer: string): string {
+  const body = paragraphs.map((p) => `<p style="margin:0 0 14px;line-height:1.5">${escapeHtml(p)}</p>`).join('');
+  return `<!doctype html><html><body style="margin:0;background:#f6f4ef;font-family:'IBM Plex Sans',Arial,sans-serif;color:#1d2a30">
+<div style="max-width:560px;margin:0 auto;padding:24px">
+<div style="font-weight:600;font-size:18px;margin-bottom:16px">Mullion</div>
+<div style="background:#ffffff;border:1px solid #d9d4c8;border-radius:6px;padding:24px">
+<h1 style="font-size:20px;margin:0 0 16px">${escapeHtml(title)}</h1>
+${body}
+<p style="margin:20px 0"><a href="${escapeHtml(action.href)}" style="background:#8f5c17;color:#ffffff;padding:10px 16px;border-radius:6px;text-decoration:none;display:inline-block">${escapeHtml(action.label)}</a></p>
+<p style="margin:0;font-size:13px;color:#5d6b73">If the button does not work, open this address: ${escapeHtml(action.href)}</p>
+</div>
+<p style="font-size:13px;color:#5d6b73;margin-top:16px">${escapeHtml(footer)}</p>
+</div></body></html>`;
+}
+
+export function invitationEmail(input: {
+  to: string;
+  firmName: string;
+  inviterName: string;
+  role: Role;
+  link: string;
+  expiresAt: Date;
+}): MailMessage {
+  const role = ROLE_LABELS[input.role].toLowerCase();
+  const subject = `${input.firmName} invited you to Mullion`;
+  const expires = input.expiresAt.toUTCString().replace(/:\d\d GMT$/, ' UTC');
+  const lines = [
+    `${input.inviterName} at ${input.firmName} invited you to join their Mullion workspace as ${role}.`,
+    `Open the link, choose your name and a password, and you are in. The link works once and expires ${expires}.`,
+  ];
+  return {
+    to: input.to,
+    subject,
+    text: `${lines.join('\n\n')}\n\nAccept the invitation: ${input.link}\n\nNot expecting this? Ignore this e-mail; nothing happens without you.\n`,
+    html: layout(subject, lines, { label: 'Accept the invitation', href: input.link }, 'Not expecting this? Ignore this e-mail; nothing happens without you.'),
+  };
+}
+
+export function passwordResetEmail(input: { to: string; name: string; link: string; minutes: number }): MailMessage {
+  const subject = 'Reset your Mullion password';
+  const lines = [
+    `Hello ${input.name},`,
+    `Someone asked to reset the password of this Mullion sign-in. If it was you, choose a new password within ${input.minutes} minutes; the link works once.`,
+  ];
+  return {
+    to: input.to,
+    subject,
+    text: `${lines.join('\n\n')}\n\nChoose a new password: ${input.link}\n\nIf it was not you, ignore this e-mail: your password stays as it is.\n`,
+    html: layout(subject, lines, { label: 'Choose a new password', href: input.link }, 'If it was not you, ignore this e-mail: your password stays as it is.'),
+  };
+}

@@ -1,0 +1,68 @@
+/**
+ * Opens the database, runs migrations, builds the app and listens. Returns a handle whose
+ * close() shuts down in the order that avoids "connection manager was closed".
+ */
+import type { Server } from 'node:http';
+import path from 'node:path';
+import type { Sequelize } from 'sequelize';
+import { createApp } from './app';
+import type { Env } from './config/env';
+import { migrate } from './db/migrator';
+import { createSequelize } from './db/sequelize';
+import { createSmtpMailer, type Mailer } from './emails/mailer';
+import { createLogger, type Logger } from './logger';
+import { initModels } from './models/index';
+import { TenantFiles } from './storage/tenant-files';
+
+export interface RunningServer {
+  server: Server;
+  port: number;
+  sequelize: Sequelize;
+  logger: Logger;
+  close(): Promise<void>;
+}
+
+export async function openDatabase(env: Env): Promise<Sequelize> {
+  const sequelize = createSequelize({ url: env.databaseUrl, logging: env.logLevel === 'debug' });
+  await sequelize.authenticate();
+  initModels(sequelize);
+  await migrate(sequelize);
+  return sequelize;
+}
+
+export async function startServer(
+  env: Env,
+  options: { mailer?: Mailer; serveClient?: string; sequelize?: Sequelize; host?: string } = {},
+): Promise<RunningServer> {
+  const logger = createLogger(env.logLevel);
+  const sequelize = options.sequelize ?? (await openDatabase(env));
+  if (!env.smtpUrl && !options.mailer) throw new Error('SMTP_URL is not set and no mailer was given.');
+  const mailer = options.mailer ?? createSmtpMailer(env.smtpUrl!, env.mailFrom);
+  const { app, close: closeApp } = createApp({
+    sequelize,
+    mailer,
+    files: new TenantFiles(path.resolve(env.tenantsDir)),
+    logger,
+    appUrl: env.appUrl,
+    sessionSecret: env.sessionSecret,
+    secureCookies: env.isProduction,
+    serveClient: options.serveClient,
+  });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(env.port, options.host ?? '0.0.0.0', (err?: Error) => (err ? reject(err) : resolve(s)));
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : env.port;
+  return {
+    server,
+    port,
+    sequelize,
+    logger,
+    async close() {
+      closeApp();
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await sequelize.close();
+    },
+  };
+}

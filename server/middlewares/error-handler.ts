@@ -1,0 +1,43 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ForbiddenError } from '@casl/ability';
+import { UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
+import multer from 'multer';
+import { HttpError, errors } from '../errors';
+import type { Logger } from '../logger';
+
+export const apiNotFound: RequestHandler = (_req, _res, next) => {
+  next(errors.notFound('API route'));
+};
+
+export function errorHandler(logger: Logger): ErrorRequestHandler {
+  return (err: unknown, req, res, _next) => {
+    let e: HttpError;
+    if (err instanceof HttpError) e = err;
+    else if (err instanceof ForbiddenError) e = errors.forbidden();
+    else if (err instanceof UniqueConstraintError) e = errors.conflict('That value is already taken.');
+    else if (err instanceof SequelizeValidationError) {
+      const fields: Record<string, string> = {};
+      for (const item of err.errors) if (item.path) fields[item.path] = item.message;
+      e = errors.validation('Check the highlighted fields.', fields);
+    } else if (err instanceof multer.MulterError) {
+      e =
+        err.code === 'LIMIT_FILE_SIZE'
+          ? errors.tooLarge('The file is too large.')
+          : errors.validation(`Upload not accepted: ${err.message}.`, { [err.field ?? 'file']: err.message });
+    } else if (isBodyParserError(err)) {
+      e =
+        err.type === 'entity.too.large'
+          ? errors.tooLarge('The request is too large.')
+          : errors.validation('The request body is not valid JSON.', { body: 'Not valid JSON.' });
+    } else {
+      logger.error('Unhandled error', { method: req.method, path: req.originalUrl, err });
+      e = new HttpError(500, 'internal', 'Something went wrong on our side. Nothing you entered was lost; try again.');
+    }
+    if (res.headersSent) return;
+    res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) } });
+  };
+}
+
+function isBodyParserError(err: unknown): err is { type: string; status: number } {
+  return typeof err === 'object' && err !== null && 'type' in err && 'status' in err && typeof (err as { type: unknown }).type === 'string';
+}

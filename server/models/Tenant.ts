@@ -1,0 +1,53 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { TenantState } from '@domain/tenant-states';
+
+/**
+ * A firm: the tenant every firm-owned row points at. The tenants table itself is read by
+ * id (the firm's own) or across firms by the operator console (`crossTenant`).
+ */
+export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttributes<Tenant>> {
+  declare id: CreationOptional<string>;
+  declare name: string;
+  declare shortName: string;
+  declare state: CreationOptional<TenantState>;
+  declare planKey: CreationOptional<string | null>;
+  declare trialEndsAt: CreationOptional<Date | null>;
+  declare suspendedAt: CreationOptional<Date | null>;
+  declare suspendedReason: CreationOptional<string | null>;
+  declare stateBeforeSuspension: CreationOptional<TenantState | null>;
+  declare timeZone: CreationOptional<string>;
+  declare licenceNumber: CreationOptional<string>;
+  declare monitoringCenterName: CreationOptional<string>;
+  declare monitoringCenterPhone: CreationOptional<string>;
+  declare accentColor: CreationOptional<string>;
+  declare logoFileId: CreationOptional<string | null>;
+  declare logoContentType: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize): void {
+    Tenant.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        name: { type: DataTypes.STRING(120), allowNull: false },
+        shortName: { type: DataTypes.STRING(40), allowNull: false, unique: true },
+        state: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'trialing' },
+        planKey: { type: DataTypes.STRING(20), allowNull: true },
+        trialEndsAt: { type: DataTypes.DATE, allowNull: true },
+        suspendedAt: { type: DataTypes.DATE, allowNull: true },
+        suspendedReason: { type: DataTypes.STRING(500), allowNull: true },
+        stateBeforeSuspension: { type: DataTypes.STRING(20), allowNull: true },
+        timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'America/Chicago' },
+        licenceNumber: { type: DataTypes.STRING(60), allowNull: false, defaultValue: '' },
+        monitoringCenterName: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
+        monitoringCenterPhone: { type: DataTypes.STRING(40), allowNull: false, defaultValue: '' },
+        accentColor: { type: DataTypes.STRING(7), allowNull: false, defaultValue: '#8f5c17' },
+        logoFileId: { type: DataTypes.STRING(80), allowNull: true },
+        logoContentType: { type: DataTypes.STRING(40), allowNull: true },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'tenants', modelName: 'Tenant' },
+    );
+  }
+}

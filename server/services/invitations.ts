@@ -1,0 +1,140 @@
+import { Op } from 'sequelize';
+import { LIMITS } from '@domain/limits';
+import type { Role } from '@domain/roles';
+import { abilityFor } from '@domain/abilities';
+import type { AcceptInvitationInput } from '@domain/schemas/auth';
+import { hashPassword } from '../auth/passwords';
+import { hashToken, newToken } from '../auth/tokens';
+import { scoped, type Ctx } from '../context';
+import type { AppDeps } from '../deps';
+import { invitationEmail } from '../emails/templates';
+import { errors } from '../errors';
+import { Invitation } from '../models/Invitation';
+import { Tenant } from '../models/Tenant';
+import { User } from '../models/User';
+import { recordAudit } from './audit-recorder';
+
+const DAY_MS = 24 * 60 * 60 * 1000;
+
+type MailDeps = Pick<AppDeps, 'mailer' | 'appUrl'>;
+
+async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ctx, deps: MailDeps): Promise<void> {
+  const tenant = ctx.tenant;
+  await deps.mailer.send(
+    invitationEmail({
+      to: invitation.email,
+      firmName: tenant?.name ?? 'Your alarm firm',
+      inviterName: ctx.user?.name ?? 'Someone',
+      role: invitation.role,
+      link: `${deps.appUrl}/invitations/${token}`,
+      expiresAt: invitation.expiresAt,
+    }),
+  );
+}
+
+/**
+ * Invites a person to the acting user's firm. Refuses an address that already has a
+ * sign-in (one person, one sign-in across the service) and replaces any pending invitation
+ * to the same address.
+ */
+export async function inviteToFirm(
+  ctx: Ctx,
+  input: { email: string; role: Role },
+  deps: MailDeps & { now: Date },
+): Promise<Invitation> {
+  const taken = await User.count({ where: { email: input.email }, crossTenant: true, transaction: ctx.transaction });
+  if (taken > 0) throw errors.emailTaken();
+  const { token, tokenHash } = newToken();
+  await Invitation.update(
+    { revokedAt: deps.now },
+    { where: scoped(ctx, { email: input.email, acceptedAt: null, revokedAt: null }), transaction: ctx.transaction },
+  );
+  const invitation = await Invitation.create(
+    {
+      tenantId: scoped(ctx).tenantId,
+      email: input.email,
+      role: input.role,
+      tokenHash,
+      invitedById: ctx.user?.id ?? null,
+      expiresAt: new Date(deps.now.getTime() + LIMITS.invitationDays * DAY_MS),
+      sentAt: deps.now,
+    },
+    { transaction: ctx.transaction },
+  );
+  await recordAudit(ctx, { action: 'invitation.sent', subjectType: 'Invitation', subjectId: invitation.id, details: { email: input.email, role: input.role } });
+  await sendInvitationMail(invitation, token, ctx, deps);
+  return invitation;
+}
+
+/** Sends a pending invitation again with a fresh link and a fresh expiry; the old link stops working. */
+export async function resendInvitation(ctx: Ctx, invitation: Invitation, deps: MailDeps & { now: Date }): Promise<Invitation> {
+  if (invitation.acceptedAt) throw errors.conflict('This invitation was already accepted.');
+  const { token, tokenHash } = newToken();
+  await invitation.update(
+    { tokenHash, revokedAt: null, sentAt: deps.now, expiresAt: new Date(deps.now.getTime() + LIMITS.invitationDays * DAY_MS) },
+    { transaction: ctx.transaction },
+  );
+  await recordAudit(ctx, { action: 'invitation.resent', subjectType: 'Invitation', subjectId: invitation.id, details: { email: invitation.email } });
+  await sendInvitationMail(invitation, token, ctx, deps);
+  return invitation;
+}
+
+export async function revokeInvitation(ctx: Ctx, invitation: Invitation, now: Date): Promise<void> {
+  if (invitation.acceptedAt) throw errors.conflict('This invitation was already accepted; deactivate the person instead.');
+  await invitation.update({ revokedAt: now }, { transaction: ctx.transaction });
+  await recordAudit(ctx, { action: 'invitation.revoked', subjectType: 'Invitation', subjectId: invitation.id, details: { email: invitation.email } });
+}
+
+const UNUSABLE = 'This invitation link is no longer valid. Ask the firm to send a new one.';
+
+/** Finds a usable invitation by its token (deliberately cross-firm: the token is the key). */
+export async function findUsableInvitation(token: string, now: Date): Promise<{ invitation: Invitation; tenant: Tenant }> {
+  const invitation = await Invitation.findOne({ where: { tokenHash: hashToken(token) }, crossTenant: true });
+  if (!invitation || invitation.invitationState(now) !== 'pending') throw notUsable();
+  const tenant = await Tenant.findOne({ where: { id: invitation.tenantId } });
+  if (!tenant) throw notUsable();
+  if (tenant.state === 'suspended') throw errors.firmSuspended();
+  return { invitation, tenant };
+}
+
+function notUsable() {
+  const e = errors.notFound('invitation');
+  e.message = UNUSABLE;
+  return e;
+}
+
+/** Creates the invitee's sign-in with the invited role; the invitation is used up. */
+export async function acceptInvitation(
+  token: string,
+  input: AcceptInvitationInput,
+  deps: Pick<AppDeps, 'sequelize'> & { now: Date; ip?: string },
+): Promise<User> {
+  const { invitation, tenant } = await findUsableInvitation(token, deps.now);
+  const passwordHash = await hashPassword(input.password);
+  return deps.sequelize.transaction(async (transaction) => {
+    // Claim the invitation first, so two accepts of the same link cannot both succeed.
+    const [claimed] = await Invitation.update(
+      { acceptedAt: deps.now },
+      { where: { id: invitation.id, tenantId: invitation.tenantId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: deps.now } }, transaction },
+    );
+    if (claimed !== 1) throw notUsable();
+    const taken = await User.count({ where: { email: invitation.email }, crossTenant: true, transaction });
+    if (taken > 0) throw errors.emailTaken();
+    const user = await User.create(
+      { tenantId: tenant.id, email: invitation.email, name: input.name, role: invitation.role, passwordHash },
+      { transaction },
+    );
+    await invitation.update({ acceptedUserId: user.id }, { transaction });
+    user.tenant = tenant;
+    const ctx: Ctx = {
+      user,
+      tenant,
+      tenantId: tenant.id,
+      ability: abilityFor({ id: user.id, role: user.role, tenantId: tenant.id }),
+      transaction,
+      ip: deps.ip,
+    };
+    await recordAudit(ctx, { action: 'invitation.accepted', subjectType: 'User', subjectId: user.id, details: { email: user.email, role: user.role } });
+    return user;
+  });
+}

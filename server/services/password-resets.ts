@@ -1,0 +1,60 @@
+import { Op } from 'sequelize';
+import { LIMITS } from '@domain/limits';
+import { hashPassword } from '../auth/passwords';
+import { hashToken, newToken } from '../auth/tokens';
+import type { AppDeps } from '../deps';
+import { passwordResetEmail } from '../emails/templates';
+import { errors } from '../errors';
+import { PasswordReset } from '../models/PasswordReset';
+import { User } from '../models/User';
+import { AuditEvent } from '../models/AuditEvent';
+import { endSessionsOf } from './sessions';
+
+const MINUTE_MS = 60 * 1000;
+
+/** Sends a reset link when the address has an active sign-in; says nothing either way. */
+export async function requestPasswordReset(email: string, deps: Pick<AppDeps, 'mailer' | 'appUrl' | 'logger'> & { now: Date }): Promise<void> {
+  const user = await User.findOne({ where: { email }, crossTenant: true });
+  if (!user || user.deactivatedAt) return;
+  const { token, tokenHash } = newToken();
+  await PasswordReset.create({
+    tenantId: user.tenantId,
+    userId: user.id,
+    tokenHash,
+    expiresAt: new Date(deps.now.getTime() + LIMITS.passwordResetMinutes * MINUTE_MS),
+  });
+  await deps.mailer.send(
+    passwordResetEmail({ to: user.email, name: user.name, link: `${deps.appUrl}/reset-password/${token}`, minutes: LIMITS.passwordResetMinutes }),
+  );
+}
+
+/** Sets a new password with a single-use, unexpired token and ends the user's other sessions. */
+export async function completePasswordReset(
+  token: string,
+  password: string,
+  deps: Pick<AppDeps, 'sequelize'> & { now: Date; ip?: string },
+): Promise<void> {
+  const passwordHash = await hashPassword(password);
+  await deps.sequelize.transaction(async (transaction) => {
+    const reset = await PasswordReset.findOne({ where: { tokenHash: hashToken(token) }, transaction });
+    const [claimed] = reset
+      ? await PasswordReset.update(
+          { usedAt: deps.now },
+          { where: { id: reset.id, usedAt: null, expiresAt: { [Op.gt]: deps.now } }, transaction },
+        )
+      : [0];
+    if (!reset || claimed !== 1) {
+      const e = errors.notFound('reset link');
+      e.message = 'This reset link is no longer valid. Ask for a new one.';
+      throw e;
+    }
+    const user = await User.findOne({ where: { id: reset.userId }, crossTenant: true, transaction });
+    if (!user || user.deactivatedAt) throw errors.userDeactivated();
+    await user.update({ passwordHash }, { transaction });
+    await endSessionsOf([user.id], { transaction });
+    await AuditEvent.create(
+      { tenantId: user.tenantId, actorId: user.id, actorRole: user.role, action: 'password.reset', subjectType: 'User', subjectId: user.id, details: null, ip: deps.ip ?? null },
+      { transaction },
+    );
+  });
+}

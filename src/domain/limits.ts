@@ -1,0 +1,19 @@
+/** Field limits shared by forms, API schemas and the database. */
+export const LIMITS = {
+  nameMax: 120,
+  firmNameMax: 120,
+  emailMax: 254,
+  passwordMin: 10,
+  passwordMax: 200,
+  shortNameMin: 3,
+  shortNameMax: 40,
+  licenceMax: 60,
+  phoneMax: 40,
+  reasonMax: 500,
+  pageSizeMax: 100,
+  pageSizeDefault: 25,
+  logoMaxBytes: 1024 * 1024,
+  logoTypes: ['image/png', 'image/jpeg', 'image/webp'] as readonly string[],
+  invitationDays: 7,
+  passwordResetMinutes: 60,
+} as const;
