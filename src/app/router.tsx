@@ -1,0 +1,102 @@
+import { createBrowserRouter, redirect, type LoaderFunctionArgs, type RouteObject } from 'react-router-dom';
+import type { QueryClient } from '@tanstack/react-query';
+import { homeFor, paths } from '@/config/paths';
+import { sessionQuery } from '@/lib/auth';
+import { RouteError } from '@/components/errors/route-error';
+import { PublicLayout } from '@/components/layouts/public-layout';
+import type { SessionInfo } from '@/types/api';
+
+type Guard = (session: SessionInfo, args: LoaderFunctionArgs) => Response | null;
+
+function signInRedirect(request: Request): Response {
+  const url = new URL(request.url);
+  const next = url.pathname + url.search;
+  return redirect(`${paths.signIn}?next=${encodeURIComponent(next)}`);
+}
+
+const firmOnly: Guard = (s, { request }) => {
+  if (!s.user) return signInRedirect(request);
+  if (s.user.role === 'operator' || s.user.role === 'client') return redirect(homeFor(s.user.role));
+  return null;
+};
+const operatorOnly: Guard = (s, { request }) => {
+  if (!s.user) return signInRedirect(request);
+  return s.user.role === 'operator' ? null : redirect(homeFor(s.user.role));
+};
+const clientOnly: Guard = (s, { request }) => {
+  if (!s.user) return signInRedirect(request);
+  return s.user.role === 'client' ? null : redirect(homeFor(s.user.role));
+};
+const signedOutOnly: Guard = (s) => (s.user ? redirect(homeFor(s.user.role)) : null);
+
+export function createAppRouter(queryClient: QueryClient) {
+  const guarded =
+    (guard: Guard) =>
+    async (args: LoaderFunctionArgs): Promise<Response | null> => {
+      const session = await queryClient.ensureQueryData(sessionQuery);
+      return guard(session, args);
+    };
+  const loadSession = async () => {
+    await queryClient.ensureQueryData(sessionQuery);
+    return null;
+  };
+
+  const page = (load: () => Promise<{ default: React.ComponentType; loader?: (qc: QueryClient, args: LoaderFunctionArgs) => Promise<unknown> }>) => ({
+    lazy: async () => {
+      const mod = await load();
+      return {
+        Component: mod.default,
+        ...(mod.loader ? { loader: (args: LoaderFunctionArgs) => mod.loader!(queryClient, args) } : {}),
+      };
+    },
+  });
+
+  const routes: RouteObject[] = [
+    {
+      id: 'root',
+      loader: loadSession,
+      errorElement: <RouteError />,
+      HydrateFallback: () => null,
+      children: [
+        {
+          element: <PublicLayout />,
+          children: [
+            { index: true, ...page(() => import('./routes/public/landing')) },
+            { path: paths.pricing, ...page(() => import('./routes/public/pricing')) },
+            { path: paths.signUp, loader: guarded(signedOutOnly), ...page(() => import('./routes/public/sign-up')) },
+            { path: paths.signIn, loader: guarded(signedOutOnly), ...page(() => import('./routes/public/sign-in')) },
+            { path: paths.forgotPassword, ...page(() => import('./routes/public/forgot-password')) },
+            { path: paths.resetPassword(), ...page(() => import('./routes/public/reset-password')) },
+            { path: paths.invitation(), ...page(() => import('./routes/public/accept-invitation')) },
+          ],
+        },
+        {
+          path: paths.firm.root,
+          loader: guarded(firmOnly),
+          lazy: async () => ({ Component: (await import('@/components/layouts/firm-layout')).FirmLayout }),
+          children: [
+            { index: true, ...page(() => import('./routes/firm/overview')) },
+            { path: 'staff', ...page(() => import('./routes/firm/staff')) },
+            { path: 'settings', ...page(() => import('./routes/firm/settings')) },
+          ],
+        },
+        {
+          path: paths.operator.root,
+          loader: guarded(operatorOnly),
+          lazy: async () => ({ Component: (await import('@/components/layouts/operator-layout')).OperatorLayout }),
+          children: [
+            { index: true, ...page(() => import('./routes/operator/tenants')) },
+            { path: 'firms/:tenantId', ...page(() => import('./routes/operator/tenant')) },
+          ],
+        },
+        {
+          path: paths.portal.root,
+          loader: guarded(clientOnly),
+          ...page(() => import('./routes/portal/home')),
+        },
+        { path: '*', ...page(() => import('./routes/not-found')) },
+      ],
+    },
+  ];
+  return createBrowserRouter(routes);
+}

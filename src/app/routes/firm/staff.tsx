@@ -1,0 +1,149 @@
+import { useMemo, useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import type { ColumnDef, SortingState } from '@tanstack/react-table';
+import { UserPlus } from 'lucide-react';
+import { ROLE_LABELS } from '@domain/roles';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { DataTable, sortParam, type ColumnMeta } from '@/components/ui/data-table';
+import { EmptyState } from '@/components/ui/empty-state';
+import { Input } from '@/components/ui/input';
+import { PageHeader } from '@/components/ui/page-header';
+import { TableSkeleton } from '@/components/ui/skeleton';
+import { useAppAbility } from '@/lib/ability';
+import { useSession } from '@/lib/auth';
+import { formatDate } from '@/lib/format';
+import { staffListQuery } from '@/features/staff/api/staff-queries';
+import { InviteStaffDialog } from '@/features/staff/components/invite-staff-dialog';
+import { PendingInvitations } from '@/features/staff/components/pending-invitations';
+import { StaffMemberActions } from '@/features/staff/components/staff-member-actions';
+import type { ApiUser } from '@/types/api';
+
+const PAGE_SIZE = 25;
+
+export default function StaffPage() {
+  const { tenant, user } = useSession();
+  const ability = useAppAbility();
+  const canAdminister = ability.can('administer', 'User');
+  const canInvite = ability.can('create', 'Invitation') && canAdminister;
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
+  const [page, setPage] = useState(1);
+  const [q, setQ] = useState('');
+  const [inviting, setInviting] = useState(false);
+  const filters = { page, pageSize: PAGE_SIZE, sort: sortParam(sorting), q: q.trim() || undefined };
+  const list = useQuery(staffListQuery(filters));
+  const timeZone = tenant?.timeZone;
+
+  const columns = useMemo<ColumnDef<ApiUser, unknown>[]>(() => {
+    const cols: ColumnDef<ApiUser, unknown>[] = [
+      {
+        id: 'name',
+        accessorKey: 'name',
+        header: 'Name',
+        cell: ({ row }) => (
+          <div className="min-w-0">
+            <p className="font-medium">
+              {row.original.name}
+              {row.original.id === user?.id && <span className="ml-1 text-xs font-normal text-slate-500">(you)</span>}
+            </p>
+            <p className="max-w-[10rem] truncate text-xs text-slate-500 md:hidden">{row.original.email}</p>
+          </div>
+        ),
+      },
+      { id: 'email', accessorKey: 'email', header: 'E-mail', meta: { hideOnMobile: true } satisfies ColumnMeta },
+      {
+        id: 'role',
+        accessorKey: 'role',
+        header: 'Role',
+        cell: ({ row }) => (
+          <span className="inline-flex flex-col items-start gap-0.5">
+            {ROLE_LABELS[row.original.role]}
+            {!row.original.active && (
+              <Badge tone="bad" className="md:hidden">
+                Deactivated
+              </Badge>
+            )}
+          </span>
+        ),
+      },
+      {
+        id: 'state',
+        header: 'State',
+        enableSorting: false,
+        meta: { hideOnMobile: true } satisfies ColumnMeta,
+        cell: ({ row }) => (row.original.active ? <Badge tone="ok">Active</Badge> : <Badge tone="bad">Deactivated</Badge>),
+      },
+      {
+        id: 'lastSignInAt',
+        accessorKey: 'lastSignInAt',
+        header: 'Last sign-in',
+        meta: { hideOnMobile: true } satisfies ColumnMeta,
+        cell: ({ row }) => (row.original.lastSignInAt ? formatDate(row.original.lastSignInAt, timeZone) : 'Never'),
+      },
+    ];
+    if (canAdminister)
+      cols.push({ id: 'actions', header: () => <span className="sr-only">Actions</span>, enableSorting: false, meta: { align: 'right' }, cell: ({ row }) => <StaffMemberActions member={row.original} /> });
+    return cols;
+  }, [canAdminister, timeZone, user?.id]);
+
+  return (
+    <>
+      <PageHeader
+        title="Staff"
+        context={canAdminister ? 'Who works in this firm, with which role. Invite your office and technicians.' : 'Who works in this firm, with which role.'}
+        action={
+          canInvite && (
+            <Button onClick={() => setInviting(true)}>
+              <UserPlus className="size-4" aria-hidden="true" /> Invite a colleague
+            </Button>
+          )
+        }
+      />
+      <div className="space-y-6">
+        {canInvite && <PendingInvitations timeZone={timeZone} />}
+        <div className="space-y-3">
+          <div className="max-w-xs">
+            <label htmlFor="staff-search" className="sr-only">
+              Search staff
+            </label>
+            <Input
+              id="staff-search"
+              type="search"
+              placeholder="Search by name or e-mail"
+              value={q}
+              onChange={(e) => {
+                setQ(e.target.value);
+                setPage(1);
+              }}
+            />
+          </div>
+          {list.isPending ? (
+            <TableSkeleton />
+          ) : list.isError ? (
+            <p className="text-sm text-clay-600">{list.error.message}</p>
+          ) : list.data.page.total === 0 && q ? (
+            <EmptyState title="Nobody matches that search">Try part of a name or an e-mail address.</EmptyState>
+          ) : (
+            <DataTable
+              caption="Staff of the firm"
+              columns={columns}
+              data={list.data.data}
+              getRowId={(r) => r.id}
+              sorting={sorting}
+              onSortingChange={(s) => {
+                setSorting(s);
+                setPage(1);
+              }}
+              page={page}
+              pageSize={PAGE_SIZE}
+              total={list.data.page.total}
+              onPageChange={setPage}
+              busy={list.isPlaceholderData}
+            />
+          )}
+        </div>
+      </div>
+      {canInvite && <InviteStaffDialog open={inviting} onClose={() => setInviting(false)} />}
+    </>
+  );
+}

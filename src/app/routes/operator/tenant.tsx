@@ -1,0 +1,90 @@
+import { useState } from 'react';
+import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { ArrowLeft } from 'lucide-react';
+import { planByKey } from '@domain/plans';
+import { paths } from '@/config/paths';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { PageHeader } from '@/components/ui/page-header';
+import { formatDate, formatDateTime } from '@/lib/format';
+import { tenantDetailQuery } from '@/features/operator/api/operator-queries';
+import { SuspendDialog } from '@/features/operator/components/suspend-dialog';
+import { TenantStateBadge } from '@/features/operator/components/tenant-state-badge';
+
+export function loader(queryClient: QueryClient, { params }: LoaderFunctionArgs) {
+  return queryClient.ensureQueryData(tenantDetailQuery(params.tenantId ?? ''));
+}
+
+const ACTION_LABELS: Record<string, string> = { 'firm.suspended': 'Suspended', 'firm.restored': 'Restored' };
+
+export default function OperatorTenantPage() {
+  const { tenantId = '' } = useParams();
+  const { data: firm } = useSuspenseQuery(tenantDetailQuery(tenantId));
+  const [dialog, setDialog] = useState(false);
+  const suspended = firm.state === 'suspended';
+  const plan = firm.planKey ? planByKey(firm.planKey) : undefined;
+
+  return (
+    <>
+      <Link to={paths.operator.tenants} className="mb-4 inline-flex items-center gap-1 text-sm text-slate-500 hover:text-ink">
+        <ArrowLeft className="size-4" aria-hidden="true" /> All firms
+      </Link>
+      <PageHeader
+        title={firm.name}
+        context={
+          <span className="inline-flex flex-wrap items-center gap-2">
+            <TenantStateBadge state={firm.state} />
+            <span className="font-mono">{firm.shortName}</span>
+          </span>
+        }
+        action={
+          <Button variant={suspended ? 'primary' : 'danger'} onClick={() => setDialog(true)}>
+            {suspended ? 'Restore firm' : 'Suspend firm'}
+          </Button>
+        }
+      />
+      {suspended && (
+        <div role="status" className="mb-6 rounded-md border border-clay-600/40 bg-clay-50 px-4 py-3 text-sm text-clay-600">
+          Suspended {formatDateTime(firm.suspendedAt)}: {firm.suspendedReason}
+        </div>
+      )}
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Card title="Firm">
+          <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-sm">
+            <dt className="text-slate-500">Owner</dt>
+            <dd>{firm.owner ? `${firm.owner.name} · ${firm.owner.email}` : '—'}</dd>
+            <dt className="text-slate-500">Plan</dt>
+            <dd>{plan?.name ?? 'None chosen'}</dd>
+            <dt className="text-slate-500">Staff seats used</dt>
+            <dd>
+              {firm.staffCount}
+              {plan ? ` of ${plan.staffSeats}` : ''}
+            </dd>
+            <dt className="text-slate-500">Trial ends</dt>
+            <dd>{firm.state === 'trialing' ? formatDate(firm.trialEndsAt) : '—'}</dd>
+            <dt className="text-slate-500">Created</dt>
+            <dd>{formatDate(firm.createdAt)}</dd>
+          </dl>
+        </Card>
+        <Card title="Service actions on this firm">
+          {firm.actions.length === 0 ? (
+            <p className="text-sm text-slate-500">No suspensions or restorations so far.</p>
+          ) : (
+            <ol className="space-y-3">
+              {firm.actions.map((a) => (
+                <li key={a.id} className="text-sm">
+                  <p>
+                    <span className="font-medium">{ACTION_LABELS[a.action] ?? a.action}</span> by {a.by} · <span className="text-slate-500">{formatDateTime(a.at)}</span>
+                  </p>
+                  {a.reason && <p className="text-slate-500">“{a.reason}”</p>}
+                </li>
+              ))}
+            </ol>
+          )}
+        </Card>
+      </div>
+      <SuspendDialog tenantId={firm.id} firmName={firm.name} suspend={!suspended} open={dialog} onClose={() => setDialog(false)} />
+    </>
+  );
+}

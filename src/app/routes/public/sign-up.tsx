@@ -1,0 +1,62 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Link, useNavigate } from 'react-router-dom';
+import { signUpSchema, type SignUpInput } from '@domain/schemas/auth';
+import { LIMITS } from '@domain/limits';
+import { paths } from '@/config/paths';
+import { AuthCard } from '@/components/layouts/public-layout';
+import { Button } from '@/components/ui/button';
+import { FormError, FormField } from '@/components/ui/form-field';
+import { Input } from '@/components/ui/input';
+import { useSignUp } from '@/features/auth/api/auth-mutations';
+import { applyServerErrors } from '@/lib/form-errors';
+
+const FIELDS = ['firmName', 'name', 'email', 'password'] as const;
+
+export default function SignUpPage() {
+  const navigate = useNavigate();
+  const signUp = useSignUp();
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({
+    resolver: zodResolver(signUpSchema),
+    defaultValues: { firmName: '', name: '', email: '', password: '' },
+  });
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    signUp.mutate(values, {
+      onSuccess: () => void navigate(paths.firm.overview),
+      onError: (err) => setFormError(applyServerErrors(err, setError, FIELDS)),
+    });
+  });
+
+  return (
+    <AuthCard title="Start your firm’s trial" intro="14 days, every feature, no card needed. You can invite your office and technicians right after.">
+      <form onSubmit={onSubmit} noValidate className="space-y-4">
+        <FormError message={formError} />
+        <FormField label="Firm name" error={formState.errors.firmName?.message}>
+          <Input autoComplete="organization" {...register('firmName')} />
+        </FormField>
+        <FormField label="Your name" error={formState.errors.name?.message}>
+          <Input autoComplete="name" {...register('name')} />
+        </FormField>
+        <FormField label="Work e-mail" error={formState.errors.email?.message}>
+          <Input type="email" autoComplete="email" inputMode="email" {...register('email')} />
+        </FormField>
+        <FormField label="Password" error={formState.errors.password?.message} hint={`At least ${LIMITS.passwordMin} characters.`}>
+          <Input type="password" autoComplete="new-password" {...register('password')} />
+        </FormField>
+        <Button type="submit" size="lg" className="w-full" busy={signUp.isPending}>
+          Create my firm
+        </Button>
+        <p className="text-center text-sm text-slate-500">
+          Already on Mullion?{' '}
+          <Link to={paths.signIn} className="font-medium text-brass-700 underline">
+            Sign in
+          </Link>
+        </p>
+      </form>
+    </AuthCard>
+  );
+}

@@ -1,0 +1,115 @@
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { Building2, LayoutDashboard, LogOut, Settings, Users } from 'lucide-react';
+import type { LucideIcon } from 'lucide-react';
+import { paths } from '@/config/paths';
+import { AbilityProvider, useAbilityFromRules } from '@/lib/ability';
+import { useSession, useSignOut } from '@/lib/auth';
+import { ROLE_LABELS } from '@domain/roles';
+import type { AppAbility } from '@domain/abilities';
+import { MullionMark } from '@/components/ui/logo';
+import { Badge } from '@/components/ui/badge';
+import { cn } from '@/lib/cn';
+
+interface NavItem {
+  to: string;
+  label: string;
+  icon: LucideIcon;
+  end?: boolean;
+  visible: (ability: AppAbility) => boolean;
+}
+
+/** Only sections the role may use, and only screens that exist. */
+const NAV: NavItem[] = [
+  { to: paths.firm.overview, label: 'Overview', icon: LayoutDashboard, end: true, visible: (a) => a.can('read', 'Tenant') },
+  { to: paths.firm.staff, label: 'Staff', icon: Users, visible: (a) => a.can('read', 'User') },
+  { to: paths.firm.settings, label: 'Firm settings', icon: Settings, visible: (a) => a.can('update', 'Tenant') },
+];
+
+export function FirmLayout() {
+  const session = useSession();
+  const ability = useAbilityFromRules(session.rules);
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const items = NAV.filter((item) => item.visible(ability));
+  const firm = session.tenant;
+  const user = session.user;
+
+  const doSignOut = () => signOut.mutate(undefined, { onSettled: () => void navigate(paths.signIn) });
+
+  return (
+    <AbilityProvider value={ability}>
+      <div className="min-h-dvh md:grid md:grid-cols-[15rem_1fr]">
+        <aside className="hidden bg-ink text-paper md:sticky md:top-0 md:flex md:h-dvh md:flex-col">
+          <div className="flex items-center gap-2 px-4 pt-5 pb-4">
+            <MullionMark className="size-6 text-paper/20" />
+            <span className="text-xs tracking-wide text-paper/70 uppercase">Mullion</span>
+          </div>
+          <div className="px-4 pb-4">
+            <p className="truncate font-semibold" title={firm?.name}>
+              {firm?.name}
+            </p>
+            {firm?.state === 'trialing' && firm.trialDaysLeft !== null && firm.trialDaysLeft !== undefined && (
+              <p className="mt-1 text-xs text-paper/70">Trial · {firm.trialDaysLeft} {firm.trialDaysLeft === 1 ? 'day' : 'days'} left</p>
+            )}
+          </div>
+          <nav aria-label="Workspace" className="flex-1 space-y-0.5 px-2">
+            {items.map((item) => (
+              <NavLink
+                key={item.to}
+                to={item.to}
+                end={item.end ?? false}
+                className={({ isActive }) =>
+                  cn('flex items-center gap-3 rounded-md px-3 py-2 text-sm', isActive ? 'bg-paper/10 font-semibold text-paper' : 'text-paper/75 hover:bg-paper/5 hover:text-paper')
+                }
+              >
+                <item.icon className="size-4" aria-hidden="true" />
+                {item.label}
+              </NavLink>
+            ))}
+          </nav>
+          <div className="border-t border-paper/10 px-4 py-4 text-sm">
+            <p className="truncate font-medium">{user?.name}</p>
+            <p className="truncate text-xs text-paper/70">{user ? ROLE_LABELS[user.role] : ''}</p>
+            <button type="button" onClick={doSignOut} className="mt-3 inline-flex items-center gap-2 text-xs text-paper/80 hover:text-paper">
+              <LogOut className="size-3.5" aria-hidden="true" /> Sign out
+            </button>
+          </div>
+        </aside>
+
+        <div className="flex min-h-dvh min-w-0 flex-col pb-16 md:pb-0">
+          <header className="flex h-14 items-center justify-between gap-2 border-b border-line bg-ink px-4 text-paper md:hidden">
+            <span className="flex min-w-0 items-center gap-2">
+              <Building2 className="size-4 shrink-0 text-paper/70" aria-hidden="true" />
+              <span className="truncate font-semibold">{firm?.name}</span>
+            </span>
+            {firm?.state === 'trialing' && firm.trialDaysLeft != null && <Badge tone="brass">Trial · {firm.trialDaysLeft}d</Badge>}
+          </header>
+          <main className="mx-auto w-full min-w-0 max-w-6xl flex-1 px-4 py-6 sm:px-6 md:py-8">
+            <Outlet />
+          </main>
+        </div>
+
+        <nav aria-label="Workspace" className="fixed inset-x-0 bottom-0 z-40 grid h-16 grid-cols-4 border-t border-line bg-card md:hidden">
+          {items.slice(0, 3).map((item) => (
+            <NavLink
+              key={item.to}
+              to={item.to}
+              end={item.end ?? false}
+              className={({ isActive }) => cn('flex flex-col items-center justify-center gap-0.5 text-xs', isActive ? 'font-semibold text-brass-700' : 'text-slate-500')}
+            >
+              <item.icon className="size-5" aria-hidden="true" />
+              {item.label.replace('Firm settings', 'Settings')}
+            </NavLink>
+          ))}
+          {Array.from({ length: Math.max(0, 3 - items.length) }, (_, i) => (
+            <span key={`gap-${i}`} />
+          ))}
+          <button type="button" onClick={doSignOut} className="flex flex-col items-center justify-center gap-0.5 text-xs text-slate-500">
+            <LogOut className="size-5" aria-hidden="true" />
+            Sign out
+          </button>
+        </nav>
+      </div>
+    </AbilityProvider>
+  );
+}

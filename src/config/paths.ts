@@ -1,0 +1,31 @@
+/** Every route path of the client, and builders for links with parameters. */
+export const paths = {
+  home: '/',
+  pricing: '/pricing',
+  signUp: '/sign-up',
+  signIn: '/sign-in',
+  forgotPassword: '/forgot-password',
+  resetPassword: (token = ':token') => `/reset-password/${token}`,
+  invitation: (token = ':token') => `/invitations/${token}`,
+  firm: {
+    root: '/app',
+    overview: '/app',
+    staff: '/app/staff',
+    settings: '/app/settings',
+  },
+  operator: {
+    root: '/operator',
+    tenants: '/operator',
+    tenant: (tenantId = ':tenantId') => `/operator/firms/${tenantId}`,
+  },
+  portal: {
+    root: '/portal',
+  },
+} as const;
+
+/** Where a signed-in person lands. */
+export function homeFor(role: string | undefined): string {
+  if (role === 'operator') return paths.operator.root;
+  if (role === 'client') return paths.portal.root;
+  return paths.firm.overview;
+}

@@ -1,0 +1,36 @@
+import { describe, expect, it } from 'vitest';
+import { screen } from '@testing-library/react';
+import { defineRulesFor } from '@domain/abilities';
+import type { Role } from '@domain/roles';
+import { FirmLayout } from '@/components/layouts/firm-layout';
+import type { SessionInfo } from '@/types/api';
+import { renderRoutes } from './render';
+
+function sessionFor(role: Role): SessionInfo {
+  const user = { id: 'u1', tenantId: 't1', email: 'x@firm.example', name: 'Sam Pell', role, active: true, deactivatedAt: null, lastSignInAt: null, createdAt: '2026-01-01T00:00:00Z' };
+  return {
+    user,
+    tenant: { id: 't1', name: 'Hollowbrook Alarms', shortName: 'hollowbrook', accentColor: '#8f5c17', accentColorReadable: '#8f5c17', logoUrl: null, monitoringCenterName: '', monitoringCenterPhone: '', timeZone: 'UTC', state: 'trialing', trialDaysLeft: 9 },
+    rules: defineRulesFor({ id: 'u1', role, tenantId: 't1' }),
+    csrfToken: 't',
+  };
+}
+
+function navLabels(): string[] {
+  const navs = screen.getAllByRole('navigation', { name: 'Workspace' });
+  return [...navs[0]!.querySelectorAll('a')].map((a) => a.textContent?.trim() ?? '');
+}
+
+describe('firm navigation shows only what the role may use', () => {
+  const cases: [Role, string[]][] = [
+    ['owner', ['Overview', 'Staff', 'Firm settings']],
+    ['coordinator', ['Overview', 'Staff']],
+    ['technician', ['Overview', 'Staff']],
+  ];
+  it.each(cases)('%s sees %j', (role, expected) => {
+    renderRoutes([{ path: '/', element: <FirmLayout /> }], { session: sessionFor(role) });
+    expect(navLabels()).toEqual(expected);
+    expect(screen.getAllByText('Hollowbrook Alarms').length).toBeGreaterThan(0);
+    expect(screen.getByText('Trial · 9 days left')).toBeInTheDocument();
+  });
+});
