@@ -85,7 +85,7 @@ export function defineRulesFor(user: AbilityUser | null): AppRule[] {
       break;
     case 'client':
       can('read', 'Tenant', { id: tenantId });
-      can('read', 'User', { id: user.id });
+      can('read', 'User', { id: user.id, tenantId });
       break;
   }
   return rules;
