@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import express, { type Express } from 'express';
+import express, { type Express, type RequestHandler } from 'express';
 import session from 'express-session';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
@@ -23,7 +23,7 @@ const SESSION_DAYS = 14;
 export interface CreatedApp {
   app: Express;
   /** stops the session store's timer; call at shutdown and in test teardown */
-  close(): void;
+  close: () => void;
 }
 
 export function createApp(deps: AppDeps): CreatedApp {
@@ -64,9 +64,10 @@ export function createApp(deps: AppDeps): CreatedApp {
     }
   });
 
+  // Our Session model (server/models/Session.ts) adds userId to the store's columns.
   const store = new SequelizeStore({
     db: deps.sequelize,
-    tableName: 'sessions',
+    table: 'Session',
     expiration: SESSION_DAYS * 24 * 60 * 60 * 1000,
     checkExpirationInterval: 15 * 60 * 1000,
     extendDefaultFields: (defaults: { data: string; expires: Date }, sess: { passport?: { user?: string } }) => ({
@@ -93,7 +94,7 @@ export function createApp(deps: AppDeps): CreatedApp {
       cookie: { httpOnly: true, sameSite: 'lax', secure: deps.secureCookies, maxAge: SESSION_DAYS * 24 * 60 * 60 * 1000, path: '/' },
     }),
   );
-  app.use('/api', passport.session());
+  app.use('/api', passport.session() as RequestHandler);
   // Order on a state-changing request: CSRF, then authentication, then authorization.
   app.use('/api', csrf.protect);
   app.use('/api', sessionGuard);

@@ -60,8 +60,14 @@ export async function startServer(
     logger,
     async close() {
       closeApp();
+      // Stop accepting, let requests in flight finish (up to a grace period), then cut the
+      // rest and only then close the database, so no handler meets a closed pool.
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      const grace = new Promise<void>((resolve) => setTimeout(resolve, 5000).unref());
+      await Promise.race([closed, grace]);
       server.closeAllConnections();
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await closed;
       await sequelize.close();
     },
   };

@@ -1,7 +1,8 @@
 /**
  * CASL rules → Sequelize `where` (architecture.md): `rulesToCondition` from
  * @casl/ability/extra walks the rules in priority order; each rule's Mongo-style
- * conditions become Sequelize operators, `cannot` rules are negated here.
+ * conditions become Sequelize operators, `cannot` rules are negated here (NULL-safe, as
+ * ability.can decides).
  */
 import { rulesToCondition } from '@casl/ability/extra';
 import { Op, type WhereOptions } from 'sequelize';
@@ -18,27 +19,33 @@ const OPS: Record<string, symbol> = {
   $lte: Op.lte,
 };
 
-/** Converts one rule's Mongo-style conditions; throws on an operator we do not translate. */
-export function mongoToSequelize(conditions: Record<string, unknown>): Record<string | symbol, unknown> {
-  const out: Record<string | symbol, unknown> = {};
+/**
+ * Converts one rule's Mongo-style conditions; throws on an operator we do not translate.
+ *
+ * CASL compares in JavaScript, where a missing value (null) differs from every value; SQL
+ * compares NULL with nothing (the result is NULL, which neither matches nor, under NOT,
+ * un-matches). So `$ne`/`$nin` also select NULL, and under a `cannot` (`negated`) each
+ * comparison with a value is bounded by IS NOT NULL: every comparison is true or false,
+ * and NOT of it keeps exactly the rows CASL keeps. CASL has no `$and`/`$or` in conditions
+ * (it reads them as field names; alternatives are separate rules), so those are refused too.
+ */
+export function mongoToSequelize(conditions: Record<string, unknown>, { negated = false } = {}): Record<string | symbol, unknown> {
+  const parts: Record<string | symbol, unknown>[] = [];
   for (const [field, value] of Object.entries(conditions)) {
-    if (field === '$and' || field === '$or') {
-      out[field === '$and' ? Op.and : Op.or] = (value as Record<string, unknown>[]).map(mongoToSequelize);
-      continue;
-    }
-    if (value !== null && typeof value === 'object' && !Array.isArray(value) && !(value instanceof Date)) {
-      const ops: Record<symbol, unknown> = {};
-      for (const [op, operand] of Object.entries(value as Record<string, unknown>)) {
-        const sym = OPS[op];
-        if (!sym) throw new Error(`No Sequelize translation for condition operator ${op}`);
-        ops[sym] = operand;
-      }
-      out[field] = ops;
-    } else {
-      out[field] = value;
+    if (field.startsWith('$')) throw new Error(`No Sequelize translation for condition operator ${field}`);
+    const isOps = value !== null && typeof value === 'object' && !Array.isArray(value) && !(value instanceof Date);
+    const ops = isOps ? (value as Record<string, unknown>) : { $eq: value };
+    for (const [op, operand] of Object.entries(ops)) {
+      const sym = OPS[op];
+      if (!sym) throw new Error(`No Sequelize translation for condition operator ${op}`);
+      const comparison = { [field]: { [sym]: operand } };
+      if (operand === null) parts.push(comparison); // IS NULL / IS NOT NULL are never NULL
+      else if (op === '$ne' || op === '$nin') parts.push({ [Op.or]: [comparison, { [field]: null }] });
+      else if (negated) parts.push({ [Op.and]: [comparison, { [field]: { [Op.ne]: null } }] });
+      else parts.push(comparison);
     }
   }
-  return out;
+  return parts.length === 0 ? {} : parts.length === 1 ? parts[0]! : { [Op.and]: parts };
 }
 
 /**
@@ -50,8 +57,8 @@ export function accessibleWhere(ability: AppAbility, action: Action, subjectType
   return rulesToCondition<AppAbility, WhereOptions, WhereOptions>(
     rules,
     (rule) => {
-      const where = mongoToSequelize((rule.conditions ?? {}) as Record<string, unknown>);
-      return rule.inverted ? { [Op.not]: where } : where;
+      const conditions = rule.conditions ?? {};
+      return rule.inverted ? { [Op.not]: mongoToSequelize(conditions, { negated: true }) } : mongoToSequelize(conditions);
     },
     {
       and: (conditions) => ({ [Op.and]: conditions }),

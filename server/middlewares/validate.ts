@@ -1,5 +1,5 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
-import { z, type ZodType } from 'zod';
+import type { z, ZodType } from 'zod';
 import { errors } from '../errors';
 
 interface Schemas {

@@ -12,11 +12,12 @@ export function inTransaction<T>(req: Request, deps: Pick<AppDeps, 'sequelize'>,
 
 /**
  * The 404/403 rule: a record this user may not read answers 404 (another firm's anything);
- * one they may read but not change answers 403.
+ * one they may read but not change answers 403. A record being created does not exist
+ * yet, so there is nothing to hide: a refused create answers 403.
  */
 export function authorizeRecord(req: Request, action: Action, type: SubjectType, record: Record<string, unknown>, what: string): void {
   const tagged = subject(type, record);
-  if (!req.ability.can('read', tagged)) throw errors.notFound(what);
+  if (action !== 'create' && !req.ability.can('read', tagged)) throw errors.notFound(what);
   if (action !== 'read' && !req.ability.can(action, tagged)) throw errors.forbidden();
 }
 

@@ -7,7 +7,6 @@ import { errors } from '../errors';
 import { AuditEvent } from '../models/AuditEvent';
 import { Tenant } from '../models/Tenant';
 import { recordAudit } from './audit-recorder';
-import { endSessionsOf, userIdsOfTenant } from './sessions';
 
 const SORTABLE = { name: 'name', createdAt: 'createdAt', state: 'state', trialEndsAt: 'trialEndsAt' } as const;
 
@@ -49,11 +48,12 @@ export async function setTenantSuspended(
   if (suspend && tenant.state === 'suspended') throw errors.conflict('This firm is already suspended.');
   if (!suspend && tenant.state !== 'suspended') throw errors.conflict('This firm is not suspended.');
   if (suspend) {
+    // Open sessions stay stored: the session guard refuses each on its next request with
+    // 403 firm_suspended and signs it out, so the person learns why.
     await tenant.update(
       { stateBeforeSuspension: tenant.state, state: 'suspended', suspendedAt: now, suspendedReason: reason },
       { transaction: ctx.transaction },
     );
-    await endSessionsOf(await userIdsOfTenant(tenant.id, ctx), ctx);
   } else {
     const back: TenantState = tenant.stateBeforeSuspension && tenant.stateBeforeSuspension !== 'suspended' ? tenant.stateBeforeSuspension : 'active';
     await tenant.update({ state: back, stateBeforeSuspension: null, suspendedAt: null, suspendedReason: null }, { transaction: ctx.transaction });

@@ -1,24 +1,13 @@
-import { Op, QueryTypes } from 'sequelize';
+import { Op } from 'sequelize';
 import type { Ctx } from '../context';
-import { User } from '../models/User';
+import { Session } from '../models/Session';
 
 /**
- * Ends every stored session of these users. (Each request also re-checks the user and firm,
- * so this is belt and braces: it frees the rows at once.)
+ * Ends every stored session of these users (after a password reset). A deactivated user's
+ * or suspended firm's sessions are not ended here: the session guard refuses them on their
+ * next request with the reason.
  */
 export async function endSessionsOf(userIds: string[], ctx: Pick<Ctx, 'transaction'>): Promise<void> {
   if (userIds.length === 0) return;
-  const sequelize = User.sequelize;
-  if (!sequelize) return;
-  await sequelize.query(`DELETE FROM sessions WHERE userId IN (:ids)`, {
-    replacements: { ids: userIds },
-    type: QueryTypes.DELETE,
-    transaction: ctx.transaction,
-  });
-}
-
-/** The ids of a firm's people, for ending their sessions when the firm is suspended. */
-export async function userIdsOfTenant(tenantId: string, ctx: Pick<Ctx, 'transaction'>): Promise<string[]> {
-  const users = await User.findAll({ attributes: ['id'], where: { tenantId: { [Op.eq]: tenantId } }, transaction: ctx.transaction });
-  return users.map((u) => u.id);
+  await Session.destroy({ where: { userId: { [Op.in]: userIds } }, transaction: ctx.transaction });
 }

@@ -5,6 +5,7 @@ import { sessionQuery } from '@/lib/auth';
 import { RouteError } from '@/components/errors/route-error';
 import { PublicLayout } from '@/components/layouts/public-layout';
 import type { SessionInfo } from '@/types/api';
+import { createAbility } from '@domain/abilities';
 
 type Guard = (session: SessionInfo, args: LoaderFunctionArgs) => Response | null;
 
@@ -27,6 +28,8 @@ const clientOnly: Guard = (s, { request }) => {
   if (!s.user) return signInRedirect(request);
   return s.user.role === 'client' ? null : redirect(homeFor(s.user.role));
 };
+/** Firm settings: only those who may change the firm (the owner). */
+const firmEditorsOnly: Guard = (s, args) => firmOnly(s, args) ?? (createAbility(s.rules).can('update', 'Tenant') ? null : redirect(paths.firm.overview));
 const signedOutOnly: Guard = (s) => (s.user ? redirect(homeFor(s.user.role)) : null);
 
 export function createAppRouter(queryClient: QueryClient) {
@@ -47,6 +50,21 @@ export function createAppRouter(queryClient: QueryClient) {
       return {
         Component: mod.default,
         ...(mod.loader ? { loader: (args: LoaderFunctionArgs) => mod.loader!(queryClient, args) } : {}),
+      };
+    },
+  });
+
+  /** A lazy page whose own loader runs only after the guard lets the visitor through. */
+  const guardedPage = (guard: Guard, load: Parameters<typeof page>[0]) => ({
+    lazy: async () => {
+      const mod = await load();
+      return {
+        Component: mod.default,
+        loader: async (args: LoaderFunctionArgs) => {
+          const refused = await guarded(guard)(args);
+          if (refused) return refused;
+          return mod.loader ? mod.loader(queryClient, args) : null;
+        },
       };
     },
   });
@@ -77,7 +95,7 @@ export function createAppRouter(queryClient: QueryClient) {
           children: [
             { index: true, ...page(() => import('./routes/firm/overview')) },
             { path: 'staff', ...page(() => import('./routes/firm/staff')) },
-            { path: 'settings', ...page(() => import('./routes/firm/settings')) },
+            { path: 'settings', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/settings')) },
           ],
         },
         {

@@ -101,5 +101,5 @@ export function abilityFor(user: AbilityUser | null): AppAbility {
 
 /** Tags a plain record with its subject type so conditions are checked against it. */
 export function subject(type: SubjectType, record: Record<string, unknown>): TaggedSubject {
-  return caslSubject(type, { ...record }) as TaggedSubject;
+  return caslSubject(type, { ...record });
 }

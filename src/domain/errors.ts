@@ -20,11 +20,12 @@ export const ERROR_STATUS = {
 export type ErrorCode = keyof typeof ERROR_STATUS;
 
 export interface ApiErrorBody {
-  error: { code: ErrorCode | string; message: string; fields?: Record<string, string> };
+  /** one of ErrorCode, or a newer code this client does not know yet */
+  error: { code: string; message: string; fields?: Record<string, string> };
 }
 
 export function isApiErrorBody(value: unknown): value is ApiErrorBody {
   if (typeof value !== 'object' || value === null || !('error' in value)) return false;
-  const e = (value as { error: unknown }).error;
+  const e = (value).error;
   return typeof e === 'object' && e !== null && 'code' in e && 'message' in e;
 }

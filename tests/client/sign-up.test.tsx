@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { screen, waitFor } from '@testing-library/react';
+import { screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import SignUpPage from '@/app/routes/public/sign-up';
 import { jsonResponse, renderRoutes } from './render';
@@ -24,11 +24,11 @@ describe('sign-up form', () => {
   });
 
   it('puts a server field error (e-mail taken) on the e-mail field', async () => {
-    const fetchMock = vi.fn(async (url: string) => {
-      if (url === '/api/session') return jsonResponse(200, signedOut);
-      return jsonResponse(409, {
+    const fetchMock = vi.fn((url: string, _init?: RequestInit) => {
+      if (url === '/api/session') return Promise.resolve(jsonResponse(200, signedOut));
+      return Promise.resolve(jsonResponse(409, {
         error: { code: 'email_taken', message: 'That e-mail address already has a Mullion account.', fields: { email: 'This e-mail address is already in use.' } },
-      });
+      }));
     });
     vi.stubGlobal('fetch', fetchMock);
     renderRoutes([{ path: '/', element: <SignUpPage /> }], { session: signedOut });
@@ -40,7 +40,7 @@ describe('sign-up form', () => {
     expect(await screen.findByText('This e-mail address is already in use.')).toBeInTheDocument();
     const post = fetchMock.mock.calls.find(([url]) => url === '/api/signup');
     expect(post).toBeDefined();
-    const init = post![1] as unknown as RequestInit;
+    const init = post![1]!;
     expect(JSON.parse(init.body as string)).toEqual({ firmName: 'Brookmere Alarms', name: 'Ines Brook', email: 'ines@brookmere.example', password: 'a good long password' });
     expect((init.headers as Record<string, string>)['X-CSRF-Token']).toBe('token-1');
   });

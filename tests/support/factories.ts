@@ -52,5 +52,5 @@ export async function buildFirmWithStaff(overrides: Partial<{ state: TenantState
     buildUser(firm, 'coordinator'),
     buildUser(firm, 'technician'),
   ]);
-  return { firm, owner: owner!, coordinator: coordinator!, technician: technician! };
+  return { firm, owner: owner, coordinator: coordinator, technician: technician };
 }

@@ -24,5 +24,5 @@ export function initTenantModel(
     },
     { sequelize, ...options },
   );
-  guardTenantScope(model as never);
+  guardTenantScope(model);
 }

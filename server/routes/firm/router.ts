@@ -41,7 +41,7 @@ export function firmRouter(deps: AppDeps): Router {
           shortName: 'Taken by another firm.',
         });
     }
-    const before = tenant.get({ plain: true });
+    const before = { ...tenant.get({ plain: true }) }; // a copy: get() hands out the live values
     await inTransaction(req, deps, async (ctx) => {
       await tenant.update(body, { transaction: ctx.transaction });
       const changed = Object.keys(body).filter((k) => before[k as keyof typeof before] !== tenant.get(k as keyof typeof before));

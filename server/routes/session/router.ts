@@ -39,7 +39,7 @@ export function sessionRouter(
   });
 
   router.post('/session', tools.signInLimiter, validate({ body: signInSchema }), (req, res, next) => {
-    tools.passport.authenticate('local', (err: unknown, user: User | false) => {
+    const authenticate = tools.passport.authenticate('local', (err: Error | null, user: User | false) => {
       (async () => {
         if (err) throw err;
         if (!user) throw errors.unauthenticated(BAD_CREDENTIALS);
@@ -49,7 +49,8 @@ export function sessionRouter(
         await user.update({ lastSignInAt: nowOf(deps) });
         res.json({ data: presentSession(user, nowOf(deps)) });
       })().catch(next);
-    })(req, res, next);
+    }) as RequestHandler;
+    authenticate(req, res, next);
   });
 
   router.delete('/session', (req, res, next) => {

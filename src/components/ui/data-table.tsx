@@ -4,17 +4,23 @@ import {
   useReactTable,
   type ColumnDef,
   type OnChangeFn,
+  type RowData,
   type SortingState,
 } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown, ChevronLeft, ChevronRight } from 'lucide-react';
 import { cn } from '@/lib/cn';
 import { Button } from './button';
 
-export interface ColumnMeta {
-  /** hide on narrow screens */
-  hideOnMobile?: boolean;
-  align?: 'left' | 'right';
+declare module '@tanstack/react-table' {
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars
+  interface ColumnMeta<TData extends RowData, TValue> {
+    /** hide on narrow screens */
+    hideOnMobile?: boolean;
+    align?: 'left' | 'right';
+  }
 }
+
+export type ColumnMeta = { hideOnMobile?: boolean; align?: 'left' | 'right' };
 
 interface DataTableProps<T> {
   columns: ColumnDef<T, unknown>[];
@@ -60,7 +66,7 @@ export function DataTable<T>({ columns, data, caption, sorting, onSortingChange,
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id} className="border-b border-line">
                 {group.headers.map((header) => {
-                  const meta = header.column.columnDef.meta as ColumnMeta | undefined;
+                  const meta = header.column.columnDef.meta;
                   const sorted = header.column.getIsSorted();
                   const canSort = header.column.getCanSort();
                   return (
@@ -98,7 +104,7 @@ export function DataTable<T>({ columns, data, caption, sorting, onSortingChange,
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id} className="border-b border-line last:border-b-0 hover:bg-paper/60">
                 {row.getVisibleCells().map((cell) => {
-                  const meta = cell.column.columnDef.meta as ColumnMeta | undefined;
+                  const meta = cell.column.columnDef.meta;
                   return (
                     <td
                       key={cell.id}
