@@ -7,7 +7,7 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { DataTable, sortParam, type ColumnMeta } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { Input } from '@/components/ui/input';
+import { SearchField } from '@/components/ui/search-field';
 import { PageHeader } from '@/components/ui/page-header';
 import { TableSkeleton } from '@/components/ui/skeleton';
 import { useAppAbility } from '@/lib/ability';
@@ -103,16 +103,12 @@ export default function StaffPage() {
         {canInvite && <PendingInvitations timeZone={timeZone} />}
         <div className="space-y-3">
           <div className="max-w-xs">
-            <label htmlFor="staff-search" className="sr-only">
-              Search staff
-            </label>
-            <Input
-              id="staff-search"
-              type="search"
+            <SearchField
+              label="Search staff"
               placeholder="Search by name or e-mail"
               value={q}
-              onChange={(e) => {
-                setQ(e.target.value);
+              onChange={(value) => {
+                setQ(value);
                 setPage(1);
               }}
             />

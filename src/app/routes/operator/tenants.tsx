@@ -7,7 +7,8 @@ import { TENANT_STATES, TENANT_STATE_LABELS, type TenantState } from '@domain/te
 import { paths } from '@/config/paths';
 import { DataTable, sortParam, type ColumnMeta } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { Input, Select } from '@/components/ui/input';
+import { Select } from '@/components/ui/input';
+import { SearchField } from '@/components/ui/search-field';
 import { PageHeader } from '@/components/ui/page-header';
 import { TableSkeleton } from '@/components/ui/skeleton';
 import { formatDate } from '@/lib/format';
@@ -62,16 +63,12 @@ export default function OperatorTenantsPage() {
       <PageHeader title="Firms" context="Every firm on the Mullion service, with its state and staff. Firms’ client records are never shown here." />
       <div className="mb-3 flex flex-col gap-2 sm:flex-row">
         <div className="sm:w-72">
-          <label htmlFor="firm-search" className="sr-only">
-            Search firms
-          </label>
-          <Input
-            id="firm-search"
-            type="search"
+          <SearchField
+            label="Search firms"
             placeholder="Search by name or short name"
             value={q}
-            onChange={(e) => {
-              setQ(e.target.value);
+            onChange={(value) => {
+              setQ(value);
               setPage(1);
             }}
           />
