@@ -11,7 +11,13 @@ import { createCsrf } from './middlewares/csrf';
 import { apiNotFound, errorHandler } from './middlewares/error-handler';
 import { createAttemptLimiter } from './middlewares/rate-limit';
 import { sessionGuard } from './middlewares/session-guard';
+import { clientsRouter } from './routes/clients/router';
+import { contactsRouter } from './routes/contacts/router';
+import { documentsRouter } from './routes/documents/router';
 import { firmRouter } from './routes/firm/router';
+import { panelsRouter } from './routes/panels/router';
+import { sitesRouter } from './routes/sites/router';
+import { zonesRouter } from './routes/zones/router';
 import { invitationsRouter } from './routes/invitations/router';
 import { operatorRouter } from './routes/operator/router';
 import { sessionRouter } from './routes/session/router';
@@ -107,6 +113,12 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', staffRouter(deps));
   app.use('/api', firmRouter(deps));
   app.use('/api', operatorRouter(deps));
+  app.use('/api', clientsRouter(deps));
+  app.use('/api', sitesRouter(deps));
+  app.use('/api', contactsRouter(deps));
+  app.use('/api', documentsRouter(deps));
+  app.use('/api', panelsRouter(deps));
+  app.use('/api', zonesRouter(deps));
   app.use('/api', apiNotFound);
   app.use('/api', errorHandler(deps.logger));
 

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import type { SecretBox } from './crypto/secret-box';
 import type { Mailer } from './emails/mailer';
 import type { Logger } from './logger';
 import type { TenantFiles } from './storage/tenant-files';
@@ -11,6 +12,8 @@ export interface AppDeps {
   logger: Logger;
   appUrl: string;
   sessionSecret: string;
+  /** encrypts verbal passcodes at rest (DATA_ENCRYPTION_KEY) */
+  secrets: SecretBox;
   secureCookies: boolean;
   serveClient?: string | undefined;
   rateLimits?: { signIn?: { limit: number; windowMs: number }; passwordReset?: { limit: number; windowMs: number } };

@@ -6,6 +6,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createApp } from './app';
+import { createSecretBox } from './crypto/secret-box';
 import type { Env } from './config/env';
 import { migrate } from './db/migrator';
 import { createSequelize } from './db/sequelize';
@@ -45,6 +46,7 @@ export async function startServer(
     logger,
     appUrl: env.appUrl,
     sessionSecret: env.sessionSecret,
+    secrets: createSecretBox(env.dataEncryptionKey),
     secureCookies: env.isProduction,
     serveClient: options.serveClient,
   });

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import { canSignIn } from '@domain/tenant-states';
 import { abilityFor } from '@domain/abilities';
+import { abilityUserOf } from '../auth/ability-user';
 import { errors } from '../errors';
 
 /**
@@ -21,7 +22,7 @@ export const sessionGuard: RequestHandler = (req, _res, next) => {
       return;
     }
   }
-  req.ability = abilityFor(user ? { id: user.id, role: user.role, tenantId: user.tenantId } : null);
+  req.ability = abilityFor(user ? abilityUserOf(user) : null);
   req.ctx = {
     user: user ?? null,
     tenant: user?.tenant ?? null,

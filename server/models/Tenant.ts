@@ -22,6 +22,8 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
   declare accentColor: CreationOptional<string>;
   declare logoFileId: CreationOptional<string | null>;
   declare logoContentType: CreationOptional<string | null>;
+  /** firm overrides of the upkeep model (battery life, smoke/CO end of life); null = defaults */
+  declare upkeepSettings: CreationOptional<Record<string, unknown> | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -44,6 +46,7 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
         accentColor: { type: DataTypes.STRING(7), allowNull: false, defaultValue: '#8f5c17' },
         logoFileId: { type: DataTypes.STRING(80), allowNull: true },
         logoContentType: { type: DataTypes.STRING(40), allowNull: true },
+        upkeepSettings: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

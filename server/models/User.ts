@@ -11,6 +11,8 @@ import { guardTenantScope } from './base/tenant-guard';
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
   declare tenantId: ForeignKey<Tenant['id']> | null;
+  /** for role `client`: the client record this homeowner is */
+  declare clientId: CreationOptional<string | null>;
   declare email: string;
   declare name: string;
   declare role: Role;
@@ -26,6 +28,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         tenantId: { type: DataTypes.UUID, allowNull: true },
+        clientId: { type: DataTypes.UUID, allowNull: true },
         email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(120), allowNull: false },
         role: { type: DataTypes.STRING(20), allowNull: false },

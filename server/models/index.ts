@@ -1,26 +1,33 @@
 import type { Sequelize } from 'sequelize';
 import { AuditEvent } from './AuditEvent';
+import { Client } from './Client';
+import { Document } from './Document';
+import { EmergencyContact } from './EmergencyContact';
 import { Invitation } from './Invitation';
+import { Panel } from './Panel';
 import { PasswordReset } from './PasswordReset';
 import { Session } from './Session';
+import { Site } from './Site';
 import { Tenant } from './Tenant';
 import { User } from './User';
+import { Zone } from './Zone';
+import { ZoneChange } from './ZoneChange';
 import { guardIncludes } from './base/tenant-guard';
 
-export { AuditEvent, Invitation, PasswordReset, Session, Tenant, User };
+export { AuditEvent, Client, Document, EmergencyContact, Invitation, Panel, PasswordReset, Session, Site, Tenant, User, Zone, ZoneChange };
 
 /** Binds every model to this database and wires the associations. */
 export function initModels(sequelize: Sequelize): void {
-  Tenant.initModel(sequelize);
-  User.initModel(sequelize);
-  Invitation.initModel(sequelize);
-  PasswordReset.initModel(sequelize);
-  AuditEvent.initModel(sequelize);
-  Session.initModel(sequelize);
+  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange];
+  for (const model of models) model.initModel(sequelize);
 
   Tenant.hasMany(User, { foreignKey: 'tenantId', as: 'users' });
   User.belongsTo(Tenant, { foreignKey: 'tenantId', as: 'tenant' });
   Tenant.hasMany(Invitation, { foreignKey: 'tenantId', as: 'invitations' });
+  Client.hasMany(Site, { foreignKey: 'clientId', as: 'sites' });
+  Site.belongsTo(Client, { foreignKey: 'clientId', as: 'client' });
+  Site.hasMany(Panel, { foreignKey: 'siteId', as: 'panels' });
+  Panel.hasMany(Zone, { foreignKey: 'panelId', as: 'zones' });
 
-  for (const model of [Tenant, User, Invitation, PasswordReset, AuditEvent]) guardIncludes(model);
+  for (const model of models) guardIncludes(model);
 }

@@ -3,6 +3,7 @@ import { LIMITS } from '@domain/limits';
 import type { Role } from '@domain/roles';
 import { abilityFor } from '@domain/abilities';
 import type { AcceptInvitationInput } from '@domain/schemas/auth';
+import { abilityUserOf } from '../auth/ability-user';
 import { hashPassword } from '../auth/passwords';
 import { hashToken, newToken } from '../auth/tokens';
 import { scoped, type Ctx } from '../context';
@@ -130,7 +131,7 @@ export async function acceptInvitation(
       user,
       tenant,
       tenantId: tenant.id,
-      ability: abilityFor({ id: user.id, role: user.role, tenantId: tenant.id }),
+      ability: abilityFor(abilityUserOf(user)),
       transaction,
       ip: deps.ip,
     };

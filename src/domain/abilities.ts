@@ -24,6 +24,7 @@ export const ACTIONS = [
   'administer',
   'suspend',
   'restore',
+  'reveal',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -34,6 +35,12 @@ export const SUBJECTS = [
   'AuditEvent',
   'Billing',
   'OperatorConsole',
+  'Client',
+  'Site',
+  'Contact',
+  'Document',
+  'Panel',
+  'Zone',
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 
@@ -72,20 +79,34 @@ export function defineRulesFor(user: AbilityUser | null): AppRule[] {
       can('manage', 'Invitation', { tenantId });
       can('read', 'AuditEvent', { tenantId });
       can('manage', 'Billing', { tenantId });
+      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone'], { tenantId });
       break;
     case 'coordinator':
       can('read', 'Tenant', { id: tenantId });
       can('read', 'User', { tenantId });
       // Coordinators invite clients (homeowners), never staff.
       can(['create', 'read', 'update', 'delete'], 'Invitation', { tenantId, role: 'client' });
+      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone'], { tenantId });
       break;
     case 'technician':
       can('read', 'Tenant', { id: tenantId });
       can('read', 'User', { tenantId });
+      // Technicians read every client and site, may see the passcode to verify with the
+      // monitoring center on site, upload photos and documents, and edit panels and zones.
+      can('read', ['Client', 'Site', 'Contact', 'Document'], { tenantId });
+      can('reveal', 'Site', { tenantId });
+      can('create', 'Document', { tenantId });
+      can('manage', ['Panel', 'Zone'], { tenantId });
       break;
     case 'client':
       can('read', 'Tenant', { id: tenantId });
       can('read', 'User', { id: user.id, tenantId });
+      // A homeowner reads their own client record and sites; portal routes present only
+      // client-safe fields (no passcodes, access notes, internal notes or serials).
+      if (user.clientId) {
+        can('read', 'Client', { id: user.clientId, tenantId });
+        can('read', 'Site', { clientId: user.clientId, tenantId });
+      }
       break;
   }
   return rules;

@@ -24,10 +24,12 @@ const OTHER_FIRM = '22222222-2222-4222-8222-222222222222';
 const ME = 'aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa';
 const COLLEAGUE = 'bbbbbbbb-bbbb-4bbb-8bbb-bbbbbbbbbbbb';
 const STRANGER = 'cccccccc-cccc-4ccc-8ccc-cccccccccccc';
+const MY_CLIENT = 'dddddddd-dddd-4ddd-8ddd-dddddddddddd';
+const OTHER_CLIENT = 'eeeeeeee-eeee-4eee-8eee-eeeeeeeeeeee';
 
 /** The signed-in user for each role; the operator has no firm. */
 function actor(role: Role): AbilityUser {
-  return { id: ME, role, tenantId: role === 'operator' ? null : OWN_FIRM };
+  return { id: ME, role, tenantId: role === 'operator' ? null : OWN_FIRM, clientId: role === 'client' ? MY_CLIENT : null };
 }
 
 /** The records each role is checked against: every subject type, own firm and other firm. */
@@ -82,6 +84,20 @@ const CASES = {
   'Billing of own firm': { type: 'Billing', record: () => ({ tenantId: OWN_FIRM, plan: 'bench' }) },
   'Billing of other firm': { type: 'Billing', record: () => ({ tenantId: OTHER_FIRM, plan: 'crew' }) },
   OperatorConsole: { type: 'OperatorConsole', record: () => ({}) },
+  'Client: the signed-in homeowner': { type: 'Client', record: () => ({ id: MY_CLIENT, tenantId: OWN_FIRM }) },
+  'Client: another of own firm': { type: 'Client', record: () => ({ id: OTHER_CLIENT, tenantId: OWN_FIRM }) },
+  'Client of other firm': { type: 'Client', record: () => ({ id: MY_CLIENT, tenantId: OTHER_FIRM }) },
+  'Site of the signed-in homeowner': { type: 'Site', record: () => ({ id: 'site-1', clientId: MY_CLIENT, tenantId: OWN_FIRM }) },
+  'Site of another client of own firm': { type: 'Site', record: () => ({ id: 'site-2', clientId: OTHER_CLIENT, tenantId: OWN_FIRM }) },
+  'Site of other firm': { type: 'Site', record: () => ({ id: 'site-3', clientId: MY_CLIENT, tenantId: OTHER_FIRM }) },
+  'Contact of own firm': { type: 'Contact', record: () => ({ id: 'c-1', siteId: 'site-1', tenantId: OWN_FIRM }) },
+  'Contact of other firm': { type: 'Contact', record: () => ({ id: 'c-2', siteId: 'site-3', tenantId: OTHER_FIRM }) },
+  'Document of own firm': { type: 'Document', record: () => ({ id: 'd-1', siteId: 'site-1', tenantId: OWN_FIRM, sharedWithClient: true }) },
+  'Document of other firm': { type: 'Document', record: () => ({ id: 'd-2', siteId: 'site-3', tenantId: OTHER_FIRM, sharedWithClient: true }) },
+  'Panel of own firm': { type: 'Panel', record: () => ({ id: 'p-1', siteId: 'site-1', tenantId: OWN_FIRM }) },
+  'Panel of other firm': { type: 'Panel', record: () => ({ id: 'p-2', siteId: 'site-3', tenantId: OTHER_FIRM }) },
+  'Zone of own firm': { type: 'Zone', record: () => ({ id: 'z-1', panelId: 'p-1', tenantId: OWN_FIRM }) },
+  'Zone of other firm': { type: 'Zone', record: () => ({ id: 'z-2', panelId: 'p-2', tenantId: OTHER_FIRM }) },
 } satisfies Record<string, { type: SubjectType; record: (u: AbilityUser) => Record<string, unknown> }>;
 
 type CaseName = keyof typeof CASES;
@@ -112,6 +128,14 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'AuditEvent by staff of own firm': ['read'],
     'AuditEvent by operator on own firm': ['read'],
     'Billing of own firm': ALL,
+    'Client: the signed-in homeowner': ALL,
+    'Client: another of own firm': ALL,
+    'Site of the signed-in homeowner': ALL,
+    'Site of another client of own firm': ALL,
+    'Contact of own firm': ALL,
+    'Document of own firm': ALL,
+    'Panel of own firm': ALL,
+    'Zone of own firm': ALL,
   },
   coordinator: {
     'Tenant of own firm': ['read'],
@@ -119,15 +143,37 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'User: colleague in own firm': ['read'],
     // Invites clients (homeowners), never staff.
     'Invitation (client) of own firm': ['create', 'read', 'update', 'delete'],
+    // The whole installed base of the firm; no billing, no staff roles.
+    'Client: the signed-in homeowner': ALL,
+    'Client: another of own firm': ALL,
+    'Site of the signed-in homeowner': ALL,
+    'Site of another client of own firm': ALL,
+    'Contact of own firm': ALL,
+    'Document of own firm': ALL,
+    'Panel of own firm': ALL,
+    'Zone of own firm': ALL,
   },
   technician: {
     'Tenant of own firm': ['read'],
     'User: own record': ['read'],
     'User: colleague in own firm': ['read'],
+    // Reads every client and site (and may reveal the passcode on site); uploads documents;
+    // edits panels and zones.
+    'Client: the signed-in homeowner': ['read'],
+    'Client: another of own firm': ['read'],
+    'Site of the signed-in homeowner': ['read', 'reveal'],
+    'Site of another client of own firm': ['read', 'reveal'],
+    'Contact of own firm': ['read'],
+    'Document of own firm': ['read', 'create'],
+    'Panel of own firm': ALL,
+    'Zone of own firm': ALL,
   },
   client: {
     'Tenant of own firm': ['read'],
     'User: own record': ['read'],
+    // Only their own client record and sites, read-only (portal presenters hide staff fields).
+    'Client: the signed-in homeowner': ['read'],
+    'Site of the signed-in homeowner': ['read'],
   },
 };
 

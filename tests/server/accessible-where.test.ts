@@ -20,7 +20,7 @@ let firms: Tenant[];
 const actingUsers: Partial<Record<Role, User>> = {};
 
 type Row = Model & { id: string; tenantId?: string | null };
-const MODELS: Record<Exclude<SubjectType, 'Billing' | 'OperatorConsole'>, ModelStatic<Row>> = {
+const MODELS: Record<Extract<SubjectType, 'Tenant' | 'User' | 'Invitation' | 'AuditEvent'>, ModelStatic<Row>> = {
   Tenant,
   User,
   Invitation,

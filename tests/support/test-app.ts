@@ -9,6 +9,7 @@ import type { Express } from 'express';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@server/app';
+import { createSecretBox } from '@server/crypto/secret-box';
 import type { AppDeps } from '@server/deps';
 import { migrate } from '@server/db/migrator';
 import { createSequelize } from '@server/db/sequelize';
@@ -41,6 +42,7 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<T
     logger: createLogger('silent'),
     appUrl: 'http://mullion.test',
     sessionSecret: 'test-session-secret-that-is-long-enough-123',
+    secrets: createSecretBox('test-data-encryption-key-that-is-long-enough'),
     secureCookies: false,
     rateLimits: { signIn: { limit: 1000, windowMs: 60_000 }, passwordReset: { limit: 1000, windowMs: 60_000 } },
     now: () => clock.now,

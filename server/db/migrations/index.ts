@@ -4,6 +4,7 @@
  */
 import type { QueryInterface } from 'sequelize';
 import * as m20261201000000 from './20261201000000-create-foundation';
+import * as m20261201010000 from './20261201010000-create-installed-base';
 
 export interface Migration {
   name: string;
@@ -11,4 +12,7 @@ export interface Migration {
   down(qi: QueryInterface): Promise<void>;
 }
 
-export const MIGRATIONS: Migration[] = [{ name: '20261201000000-create-foundation', ...m20261201000000 }];
+export const MIGRATIONS: Migration[] = [
+  { name: '20261201000000-create-foundation', ...m20261201000000 },
+  { name: '20261201010000-create-installed-base', ...m20261201010000 },
+];

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { ROLE_LABELS } from '@domain/roles';
 import { acceptInvitationSchema, tokenParams } from '@domain/schemas/auth';
 import { defineRulesFor } from '@domain/abilities';
+import { abilityUserOf } from '../../auth/ability-user';
 import type { AppDeps } from '../../deps';
 import { inputOf, validate } from '../../middlewares/validate';
 import { presentTenant } from '../../presenters/tenant';
@@ -36,7 +37,7 @@ export function invitationsRouter(deps: AppDeps): Router {
       data: {
         user: presentUser(user),
         tenant: user.tenant ? presentTenant(user.tenant, { audience: user.role === 'client' ? 'client' : 'staff' }) : null,
-        rules: defineRulesFor({ id: user.id, role: user.role, tenantId: user.tenantId }),
+        rules: defineRulesFor(abilityUserOf(user)),
       },
     });
   });

@@ -2,6 +2,7 @@ import { Router, type Request, type RequestHandler } from 'express';
 import { defineRulesFor } from '@domain/abilities';
 import { canSignIn } from '@domain/tenant-states';
 import { passwordResetRequestSchema, passwordResetSchema, signInSchema, signUpSchema, tokenParams } from '@domain/schemas/auth';
+import { abilityUserOf } from '../../auth/ability-user';
 import { BAD_CREDENTIALS, type PassportInstance } from '../../auth/passport';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
@@ -22,7 +23,7 @@ function presentSession(user: User | null | undefined, now: Date) {
   return {
     user: user ? presentUser(user) : null,
     tenant: user?.tenant ? presentTenant(user.tenant, { audience: user.role === 'client' ? 'client' : 'staff', now }) : null,
-    rules: defineRulesFor(user ? { id: user.id, role: user.role, tenantId: user.tenantId } : null),
+    rules: defineRulesFor(user ? abilityUserOf(user) : null),
   };
 }
 

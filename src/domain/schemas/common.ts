@@ -54,3 +54,39 @@ export const listQuery = z.object({
   q: z.string().trim().max(200).optional(),
 });
 export type ListQuery = z.infer<typeof listQuery>;
+
+/** A calendar date written YYYY-MM-DD (the API's `…On` fields). */
+export const isoDate = z
+  .string({ error: 'Enter a date as YYYY-MM-DD.' })
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date as YYYY-MM-DD.')
+  .refine((v) => {
+    const d = new Date(`${v}T00:00:00Z`);
+    return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === v;
+  }, 'That date does not exist.');
+
+/** An optional date: empty string and null both mean "no date". */
+export const optionalDate = z.preprocess((v) => (v === '' ? null : v), isoDate.nullable());
+
+/** Optional free text: trimmed, at most `max` characters, empty allowed. */
+export function optionalText(max: number) {
+  return z
+    .string({ error: 'Enter text.' })
+    .trim()
+    .max(max, `Use at most ${max} characters.`);
+}
+
+type Undefaulted<S> = S extends z.ZodDefault<infer Inner> ? Inner : S;
+type PatchShape<T extends z.ZodRawShape> = { [K in keyof T]: z.ZodOptional<Undefaulted<T[K]>> };
+
+/**
+ * The PATCH form of an object schema: every field optional and no defaults, so a field
+ * left out stays as it is (zod's `.partial()` would still fill defaults in).
+ */
+export function patchOf<T extends z.ZodRawShape>(schema: z.ZodObject<T>): z.ZodObject<PatchShape<T>> {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [key, field] of Object.entries(schema.shape)) {
+    const inner = field instanceof z.ZodDefault ? (field.unwrap() as z.ZodType) : (field as z.ZodType);
+    shape[key] = inner.optional();
+  }
+  return z.object(shape) as unknown as z.ZodObject<PatchShape<T>>;
+}

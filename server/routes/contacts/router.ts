@@ -1,0 +1,8 @@
+import { Router } from 'express';
+import type { AppDeps } from '../../deps';
+
+/** Routes of this resource (being built). */
+export function contactsRouter(_deps: AppDeps): Router {
+  const router = Router();
+  return router;
+}
