@@ -6,6 +6,7 @@
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readEnv } from './config/env';
+import { createSecretBox } from './crypto/secret-box';
 import { buildClient, clientBuildIsStale } from './client-build';
 import { DEMO_PASSWORD, isDatabaseEmpty, seedDemo, type DemoSignIn } from './db/seeders/demo';
 import { startMailCatcher, type MailCatcher } from './fakes/mail-catcher';
@@ -30,7 +31,7 @@ async function main(): Promise<void> {
 
   const sequelize = await openDatabase(env);
   let demo: DemoSignIn[] = [];
-  if (!env.isProduction && (await isDatabaseEmpty())) demo = await seedDemo(sequelize);
+  if (!env.isProduction && (await isDatabaseEmpty())) demo = await seedDemo(sequelize, createSecretBox(env.dataEncryptionKey));
 
   const running = await startServer(env, { sequelize, serveClient: path.join(root, 'dist') });
 

@@ -53,3 +53,9 @@ export function sniffImage(data: Buffer): { contentType: string; extension: stri
     return { contentType: 'image/webp', extension: 'webp' };
   return null;
 }
+
+/** Recognises a PDF by its header (`%PDF-` at the very start), never by the name or the declared type. */
+export function sniffPdf(data: Buffer): { contentType: string; extension: string } | null {
+  if (data.length >= 5 && data.toString('latin1', 0, 5) === '%PDF-') return { contentType: 'application/pdf', extension: 'pdf' };
+  return null;
+}

@@ -95,7 +95,13 @@ export function createAppRouter(queryClient: QueryClient) {
           children: [
             { index: true, ...page(() => import('./routes/firm/overview')) },
             { path: 'staff', ...page(() => import('./routes/firm/staff')) },
+            { path: 'clients', ...page(() => import('./routes/firm/clients')) },
+            { path: 'clients/:clientId', ...page(() => import('./routes/firm/client')) },
+            { path: 'clients/:clientId/sites/new', ...page(() => import('./routes/firm/site-new')) },
+            { path: 'sites/:siteId', ...page(() => import('./routes/firm/site')) },
+            { path: 'sites/:siteId/edit', ...page(() => import('./routes/firm/site-edit')) },
             { path: 'settings', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/settings')) },
+            { path: 'panels/:panelId', ...page(() => import('./routes/firm/panel')) },
           ],
         },
         {

@@ -12,6 +12,12 @@ export const paths = {
     overview: '/app',
     staff: '/app/staff',
     settings: '/app/settings',
+    panel: (panelId = ':panelId') => `/app/panels/${panelId}`,
+    clients: '/app/clients',
+    client: (clientId = ':clientId') => `/app/clients/${clientId}`,
+    newSite: (clientId = ':clientId') => `/app/clients/${clientId}/sites/new`,
+    site: (siteId = ':siteId') => `/app/sites/${siteId}`,
+    editSite: (siteId = ':siteId') => `/app/sites/${siteId}/edit`,
   },
   operator: {
     root: '/operator',

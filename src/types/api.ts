@@ -86,3 +86,138 @@ export interface OperatorTenantDetail extends OperatorTenant {
   owner: { name: string; email: string } | null;
   actions: { id: string; action: string; at: string; by: string; reason: string | null }[];
 }
+
+export interface ApiClient {
+  id: string;
+  name: string;
+  email: string;
+  phone: string;
+  altPhone: string;
+  notes?: string;
+  status: 'active' | 'cancelled';
+  siteCount?: number;
+  createdAt: string;
+}
+
+export interface ApiAddress {
+  line1: string;
+  line2: string;
+  city: string;
+  region: string;
+  postalCode: string;
+  country: string;
+}
+
+export interface ApiSite {
+  id: string;
+  clientId: string;
+  clientName?: string;
+  name: string;
+  address: ApiAddress;
+  timeZone: string;
+  latitude: number | null;
+  longitude: number | null;
+  monitoringAccount?: string;
+  accessNotes?: string;
+  permit: { number: string; authority: string; expiresOn: string | null };
+  contract?: { startsOn: string | null; termMonths: number | null; monthlyFeeCents: number | null; cancelledOn: string | null; cancelReason: string };
+  hasPasscode: boolean;
+  createdAt: string;
+}
+
+export interface ApiContact {
+  id: string;
+  siteId: string;
+  position: number;
+  name: string;
+  relation: string;
+  phone: string;
+  altPhone: string;
+}
+
+export interface ApiDocument {
+  id: string;
+  siteId: string;
+  kind: 'permit' | 'contract' | 'certificate' | 'photo' | 'floor_plan' | 'other';
+  title: string;
+  contentType: string;
+  sizeBytes: number;
+  originalName: string;
+  sharedWithClient: boolean;
+  createdAt: string;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Panels and zones
+// ---------------------------------------------------------------------------------------------
+import type { Cp01Finding, PanelSettings } from '@domain/cp01';
+import type { DeviceLifeState } from '@domain/device-life';
+import type { CommPath, DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
+
+export interface ApiPanel {
+  id: string;
+  siteId: string;
+  /** The site's name, when the server sends it with the panel. */
+  siteName?: string;
+  label: string;
+  makeModel: string;
+  zoneCapacity: number;
+  wirelessZoneFrom: number;
+  wirelessZoneTo: number;
+  commPath: CommPath;
+  installedOn: string | null;
+  settings: PanelSettings;
+  programmedAt: string | null;
+  changedSinceProgrammed: boolean;
+  /** Lowest free number in the wireless range; null when the range is full. */
+  nextZoneNumber: number | null;
+  /** Zones that hold a number (every zone but a removed one), when the server counts them. */
+  zoneCount?: number;
+  /** CP-01 findings on the panel's settings. */
+  audit: Cp01Finding[];
+  createdAt?: string;
+  updatedAt?: string;
+}
+
+export interface ApiZone {
+  id: string;
+  panelId: string;
+  number: number;
+  description: string;
+  deviceType: DeviceType;
+  zoneType: ZoneType;
+  serial: string;
+  input: number;
+  reportsToMonitoring: boolean;
+  chime: boolean;
+  supervised: boolean;
+  status: ZoneStatus;
+  roomId: string | null;
+  openingId: string | null;
+  installedOn: string | null;
+  batteryType: string | null;
+  batteryChangedOn: string | null;
+  manufacturedOn: string | null;
+  life: { batteryDueOn: string | null; endOfLifeOn: string | null; state: DeviceLifeState };
+  /** The same serial on other panels of the firm (a note, not an error). */
+  elsewhere?: string[];
+  createdAt?: string;
+  updatedAt?: string;
+}
+
+export interface ApiZoneChange {
+  id: string;
+  zoneId: string | null;
+  zoneNumber: number | null;
+  action: 'created' | 'updated' | 'removed' | 'deleted' | 'imported' | 'programmed';
+  changes: Record<string, [unknown, unknown]>;
+  actorName: string;
+  createdAt: string;
+}
+
+/** The answer of POST /api/panels/:panelId/zones/import (dry run or real). */
+export interface ApiZoneImportResult {
+  rows: Partial<ApiZone>[];
+  creates: number;
+  updates: number;
+}

@@ -12,6 +12,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { TestProject } from 'vitest/node';
 import { readEnv } from '../../server/config/env';
+import { createSecretBox } from '../../server/crypto/secret-box';
 import { seedDemo } from '../../server/db/seeders/demo';
 import { startMailCatcher } from '../../server/fakes/mail-catcher';
 import { openDatabase, startServer } from '../../server/index';
@@ -131,7 +132,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     // close() does, in the order that lets open requests finish first.
     let stopApp = () => sequelize.close();
     cleanups.push(() => stopApp());
-    await seedDemo(sequelize);
+    await seedDemo(sequelize, createSecretBox(env.dataEncryptionKey));
 
     const running = await startServer(env, { sequelize, serveClient: clientDir, host: '127.0.0.1' });
     stopApp = () => running.close();

@@ -6,6 +6,8 @@
 import type { Sequelize } from 'sequelize';
 import { trialEndsAt } from '@domain/tenant-states';
 import { hashPassword } from '../../auth/passwords';
+import type { SecretBox } from '../../crypto/secret-box';
+import { seedInstalledBase } from './demo-installed-base';
 import { AuditEvent } from '../../models/AuditEvent';
 import { Tenant } from '../../models/Tenant';
 import { User } from '../../models/User';
@@ -23,6 +25,8 @@ const FIRMS = [
     name: 'Lanternfield Alarm Co.',
     shortName: 'lanternfield',
     domain: 'lanternfield.example',
+    seed: 11,
+    region: 'Brindle County',
     state: 'active' as const,
     timeZone: 'America/Chicago',
     licenceNumber: 'AL-20417',
@@ -40,6 +44,8 @@ const FIRMS = [
     name: 'Tamsworth Vale Security',
     shortName: 'tamsworth-vale',
     domain: 'tamsworthvale.example',
+    seed: 29,
+    region: 'Vale County',
     state: 'trialing' as const,
     timeZone: 'America/Denver',
     licenceNumber: 'SV-3381',
@@ -60,7 +66,7 @@ export async function isDatabaseEmpty(): Promise<boolean> {
   return (await User.count({ crossTenant: true })) === 0;
 }
 
-export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<DemoSignIn[]> {
+export async function seedDemo(sequelize: Sequelize, secrets: SecretBox, now = new Date()): Promise<DemoSignIn[]> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const signIns: DemoSignIn[] = [];
   await sequelize.transaction(async (transaction) => {
@@ -94,6 +100,15 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
         );
         signIns.push({ email: user.email, role: person.role, firm: firm.name });
       }
+      await seedInstalledBase(tenant.id, {
+        seed: firm.seed,
+        today: now,
+        timeZone: firm.timeZone,
+        region: firm.region,
+        secrets,
+        transaction,
+        cp01FindingOnFirstPanel: true,
+      });
       await AuditEvent.create(
         { tenantId: tenant.id, actorId: null, actorRole: null, action: 'firm.created', subjectType: 'Tenant', subjectId: tenant.id, details: { demo: true }, ip: null },
         { transaction },

@@ -1,5 +1,5 @@
 import { NavLink, Outlet, useNavigate } from 'react-router-dom';
-import { Building2, LayoutDashboard, LogOut, Settings, Users } from 'lucide-react';
+import { Building2, Home, LayoutDashboard, LogOut, Settings, Users } from 'lucide-react';
 import type { LucideIcon } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AbilityProvider, useAbilityFromRules } from '@/lib/ability';
@@ -21,6 +21,7 @@ interface NavItem {
 /** Only sections the role may use, and only screens that exist. */
 const NAV: NavItem[] = [
   { to: paths.firm.overview, label: 'Overview', icon: LayoutDashboard, end: true, visible: (a) => a.can('read', 'Tenant') },
+  { to: paths.firm.clients, label: 'Clients', icon: Home, visible: (a) => a.can('read', 'Client') },
   { to: paths.firm.staff, label: 'Staff', icon: Users, visible: (a) => a.can('read', 'User') },
   { to: paths.firm.settings, label: 'Firm settings', icon: Settings, visible: (a) => a.can('update', 'Tenant') },
 ];

@@ -1,0 +1,306 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { RotateCcw } from 'lucide-react';
+import {
+  BATTERY_TYPES,
+  DEVICE_TYPE_LABELS,
+  DEVICE_TYPES,
+  ZONE_STATUS_LABELS,
+  ZONE_STATUSES,
+  ZONE_TYPE_LABELS,
+  ZONE_TYPES,
+  type DeviceType,
+} from '@domain/devices';
+import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
+import { zoneSchema } from '@domain/schemas/zone';
+import { zoneDefaultsFor, zoneWarnings, type ZoneDefaults } from '@domain/zones';
+import { Button } from '@/components/ui/button';
+import { Dialog } from '@/components/ui/dialog';
+import { FormError, FormField } from '@/components/ui/form-field';
+import { Input, Select } from '@/components/ui/input';
+import { useToast } from '@/components/ui/toast';
+import { applyServerErrors } from '@/lib/form-errors';
+import type { ApiPanel, ApiZone } from '@/types/api';
+import { CheckField } from '@/features/panels/components/check-field';
+import { useCreateZone, useUpdateZone } from '../api/zone-queries';
+import { isLifeSafetyDevice } from './zone-life-badge';
+
+/** The zone form edits every field but the room/opening link (that comes with the premises). */
+const zoneFormSchema = zoneSchema.omit({ roomId: true, openingId: true });
+type ZoneFormInput = z.input<typeof zoneFormSchema>;
+type ZoneFormValues = z.output<typeof zoneFormSchema>;
+
+const FIELDS = [
+  'number',
+  'description',
+  'deviceType',
+  'zoneType',
+  'serial',
+  'input',
+  'reportsToMonitoring',
+  'chime',
+  'supervised',
+  'status',
+  'installedOn',
+  'batteryType',
+  'batteryChangedOn',
+  'manufacturedOn',
+] as const satisfies readonly (keyof ZoneFormInput)[];
+
+const BEHAVIOUR_KEYS = ['zoneType', 'reportsToMonitoring', 'chime', 'supervised'] as const satisfies readonly (keyof ZoneDefaults)[];
+
+const DEFAULT_DEVICE: DeviceType = 'door_contact';
+
+function followsDefaults(zone: ApiZone): boolean {
+  const defaults = zoneDefaultsFor(zone.deviceType);
+  return BEHAVIOUR_KEYS.every((key) => zone[key] === defaults[key]);
+}
+
+function initialValues(panel: ApiPanel, zone: ApiZone | undefined): ZoneFormInput {
+  if (zone) {
+    return {
+      number: zone.number,
+      description: zone.description,
+      deviceType: zone.deviceType,
+      zoneType: zone.zoneType,
+      serial: zone.serial,
+      input: zone.input,
+      reportsToMonitoring: zone.reportsToMonitoring,
+      chime: zone.chime,
+      supervised: zone.supervised,
+      status: zone.status,
+      installedOn: zone.installedOn ?? '',
+      batteryType: zone.batteryType ?? '',
+      batteryChangedOn: zone.batteryChangedOn ?? '',
+      manufacturedOn: zone.manufacturedOn ?? '',
+    };
+  }
+  return {
+    number: panel.nextZoneNumber ?? undefined,
+    description: '',
+    deviceType: DEFAULT_DEVICE,
+    serial: '',
+    input: 1,
+    ...zoneDefaultsFor(DEFAULT_DEVICE),
+    status: 'active',
+    installedOn: '',
+    batteryType: '',
+    batteryChangedOn: '',
+    manufacturedOn: '',
+  };
+}
+
+interface ZoneFormDialogProps {
+  open: boolean;
+  onClose: () => void;
+  panel: ApiPanel;
+  /** The zone to edit; leave out to add a zone. */
+  zone?: ApiZone | undefined;
+}
+
+/** Add or edit a zone, its fields grouped as Where / Device / Behaviour. */
+export function ZoneFormDialog({ open, onClose, panel, zone }: ZoneFormDialogProps) {
+  return (
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title={zone ? `Edit zone ${zone.number}` : 'Add zone'}
+      description={zone ? `On ${panel.label}. Saving marks the panel as changed since last programmed.` : `Enrol a device on ${panel.label}. Behaviour follows the device type until you change it.`}
+    >
+      <ZoneForm panel={panel} zone={zone} onDone={onClose} />
+    </Dialog>
+  );
+}
+
+function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | undefined; onDone: () => void }) {
+  const create = useCreateZone(panel.id);
+  const update = useUpdateZone(panel.id);
+  const toast = useToast();
+  const [formError, setFormError] = useState<string | null>(null);
+  const [byHand, setByHand] = useState(() => (zone ? !followsDefaults(zone) : false));
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<ZoneFormInput, unknown, ZoneFormValues>({
+    resolver: zodResolver(zoneFormSchema),
+    defaultValues: initialValues(panel, zone),
+  });
+  const e = formState.errors;
+  const deviceType = watch('deviceType');
+  const number = watch('number');
+  const serial = watch('serial');
+  const input = watch('input');
+
+  const applyDefaults = (type: DeviceType) => {
+    const defaults = zoneDefaultsFor(type);
+    for (const key of BEHAVIOUR_KEYS) setValue(key, defaults[key], { shouldDirty: true, shouldValidate: formState.isSubmitted });
+  };
+  const markByHand = () => setByHand(true);
+
+  const numberWarning =
+    typeof number === 'number' && Number.isFinite(number) ? zoneWarnings({ number, serial: String(serial ?? ''), input: Number(input) || 1 }, panel)[0]?.message : undefined;
+  const numberHint =
+    numberWarning ??
+    (zone
+      ? undefined
+      : panel.nextZoneNumber !== null
+        ? `Next free wireless number: ${panel.nextZoneNumber} (wireless zones ${panel.wirelessZoneFrom}–${panel.wirelessZoneTo}).`
+        : `The wireless zones ${panel.wirelessZoneFrom}–${panel.wirelessZoneTo} are all used. Choose a number up to ${panel.zoneCapacity}.`);
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    const failed = (err: unknown) => setFormError(applyServerErrors(err, setError, FIELDS));
+    if (zone) {
+      update.mutate(
+        { zoneId: zone.id, input: values },
+        {
+          onSuccess: (saved) => {
+            toast.success(`Zone ${saved.number} “${saved.description}” saved.`);
+            onDone();
+          },
+          onError: failed,
+        },
+      );
+    } else {
+      create.mutate(values, {
+        onSuccess: (saved) => {
+          toast.success(`Zone ${saved.number} “${saved.description}” added.`);
+          onDone();
+        },
+        onError: failed,
+      });
+    }
+  });
+
+  const legend = 'mb-3 text-xs font-semibold tracking-wide text-slate-500 uppercase';
+  const elsewhere = zone?.elsewhere ?? [];
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-5">
+      <FormError message={formError} />
+
+      <fieldset>
+        <legend className={legend}>Where</legend>
+        <div className="grid grid-cols-[6.5rem_1fr] gap-3">
+          <FormField label="Zone number" error={e.number?.message}>
+            <Input type="number" inputMode="numeric" min={1} max={panel.zoneCapacity} className="tabular-nums" {...register('number', { valueAsNumber: true })} />
+          </FormField>
+          <FormField label="Description" error={e.description?.message}>
+            <Input maxLength={40} autoComplete="off" placeholder="Front door" {...register('description')} />
+          </FormField>
+        </div>
+        {numberHint && !e.number && <p className={numberWarning ? 'mt-1 text-xs font-medium text-ochre-600' : 'mt-1 text-xs text-slate-500'}>{numberHint}</p>}
+        <p className="mt-1 text-xs text-slate-500">Describe it as the household says it; keypads show up to 40 characters.</p>
+      </fieldset>
+
+      <fieldset>
+        <legend className={legend}>Device</legend>
+        <div className="grid gap-3 sm:grid-cols-2">
+          <FormField label="Device type" error={e.deviceType?.message} className="sm:col-span-2">
+            <Select
+              {...register('deviceType', {
+                onChange: (ev: React.ChangeEvent<HTMLSelectElement>) => {
+                  if (!byHand) applyDefaults(ev.target.value as DeviceType);
+                },
+              })}
+            >
+              {DEVICE_TYPES.map((t) => (
+                <option key={t} value={t}>
+                  {DEVICE_TYPE_LABELS[t]}
+                </option>
+              ))}
+            </Select>
+          </FormField>
+          <FormField
+            label="Serial"
+            error={e.serial?.message}
+            hint={elsewhere.length > 0 ? elsewhere.join(' ') : 'As printed on the device; leading zeros count.'}
+          >
+            <Input className="font-mono" autoComplete="off" autoCapitalize="characters" spellCheck={false} {...register('serial')} />
+          </FormField>
+          <FormField label="Input" error={e.input?.message} hint="Contact input on the transmitter (1–8).">
+            <Input type="number" inputMode="numeric" min={1} max={8} className="tabular-nums" {...register('input', { valueAsNumber: true })} />
+          </FormField>
+          <FormField label="Battery type" error={e.batteryType?.message} hint="Pick one or type another.">
+            <Input list="zone-battery-types" autoComplete="off" {...register('batteryType')} />
+          </FormField>
+          <datalist id="zone-battery-types">
+            {BATTERY_TYPES.map((b) => (
+              <option key={b} value={b} />
+            ))}
+          </datalist>
+          <FormField label="Installed on" error={e.installedOn?.message}>
+            <Input type="date" {...register('installedOn')} />
+          </FormField>
+          <FormField label="Battery changed on" error={e.batteryChangedOn?.message} hint="Leave empty if never changed since install.">
+            <Input type="date" {...register('batteryChangedOn')} />
+          </FormField>
+          <FormField
+            label="Manufactured on"
+            error={e.manufacturedOn?.message}
+            hint={isLifeSafetyDevice(deviceType) ? 'Printed on the alarm; end of life counts from this date.' : 'For smoke, heat and CO alarms.'}
+          >
+            <Input type="date" {...register('manufacturedOn')} />
+          </FormField>
+        </div>
+        {isLifeSafetyDevice(deviceType) && <p className="mt-2 text-xs text-slate-500">{LIFE_SAFETY_CAUTION}</p>}
+      </fieldset>
+
+      <fieldset>
+        <legend className={legend}>Behaviour</legend>
+        <div className="space-y-3">
+          <FormField label="Zone type" error={e.zoneType?.message}>
+            <Select {...register('zoneType', { onChange: markByHand })}>
+              {ZONE_TYPES.map((t) => (
+                <option key={t} value={t}>
+                  {ZONE_TYPE_LABELS[t]}
+                </option>
+              ))}
+            </Select>
+          </FormField>
+          <div className="grid gap-3 sm:grid-cols-3">
+            <CheckField label="Reports to monitoring center" {...register('reportsToMonitoring', { onChange: markByHand })} />
+            <CheckField label="Chime" hint="Keypad announces it while disarmed." {...register('chime', { onChange: markByHand })} />
+            <CheckField label="Supervised" hint="Trouble if it stops checking in." {...register('supervised', { onChange: markByHand })} />
+          </div>
+          <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-xs text-slate-500" aria-live="polite">
+            {byHand ? (
+              <>
+                <span>Changed by hand: the device type no longer sets these.</span>
+                <button
+                  type="button"
+                  className="inline-flex items-center gap-1 font-medium text-brass-700 underline"
+                  onClick={() => {
+                    applyDefaults(deviceType);
+                    setByHand(false);
+                  }}
+                >
+                  <RotateCcw className="size-3" aria-hidden="true" /> Use the defaults for {DEVICE_TYPE_LABELS[deviceType].toLowerCase()}
+                </button>
+              </>
+            ) : (
+              <span>Filled from the defaults for {DEVICE_TYPE_LABELS[deviceType].toLowerCase()}.</span>
+            )}
+          </div>
+          <FormField label="Status" error={e.status?.message} className="sm:max-w-60">
+            <Select {...register('status')}>
+              {ZONE_STATUSES.map((s) => (
+                <option key={s} value={s}>
+                  {ZONE_STATUS_LABELS[s]}
+                </option>
+              ))}
+            </Select>
+          </FormField>
+        </div>
+      </fieldset>
+
+      <div className="flex justify-end gap-2 pt-1">
+        <Button variant="secondary" onClick={onDone}>
+          Cancel
+        </Button>
+        <Button type="submit" busy={create.isPending || update.isPending}>
+          {zone ? 'Save zone' : 'Add zone'}
+        </Button>
+      </div>
+    </form>
+  );
+}
