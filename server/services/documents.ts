@@ -27,13 +27,15 @@ export function safeFileName(original: string, extension: string): string {
   const last = original.split(/[\\/]/).pop() ?? '';
   const cleaned = last
     .normalize('NFC')
-    .replace(/[\p{Cc}\p{Cf}"*:<>?|;%]/gu, '')
     .replace(/\s+/g, ' ')
-    .trim()
-    .replace(/^\.+/, '');
+    .replace(/[\p{Cc}\p{Cf}"*:<>?|;%]/gu, '')
+    .trim();
   const lower = cleaned.toLowerCase();
   const suffix = [`.${extension}`, ...(extension === 'jpg' ? ['.jpeg'] : [])].find((e) => lower.endsWith(e));
-  const stem = (suffix ? cleaned.slice(0, -suffix.length) : cleaned).slice(0, 110).trim();
+  const stem = (suffix ? cleaned.slice(0, -suffix.length) : cleaned)
+    .replace(/^[.\s]+/, '')
+    .slice(0, 110)
+    .trim();
   return `${stem || 'document'}${suffix ? cleaned.slice(-suffix.length) : `.${extension}`}`;
 }
 

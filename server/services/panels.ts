@@ -25,7 +25,7 @@ const SETTING_KEYS = Object.keys(CP01_DEFAULTS) as (keyof PanelSettings)[];
 /** A panel's saved settings over the CP-01 defaults, with only the known keys. */
 export function settingsOf(panel: Pick<Panel, 'settings'>): PanelSettings {
   const saved = (panel.settings ?? {}) as Partial<PanelSettings>;
-  const out = { ...CP01_DEFAULTS } as PanelSettings;
+  const out: PanelSettings = { ...CP01_DEFAULTS };
   for (const key of SETTING_KEYS) {
     const value = saved[key];
     if (value !== undefined && value !== null) (out as unknown as Record<string, unknown>)[key] = value;

@@ -49,6 +49,16 @@ function checkContractDates(site: Site): void {
   }
 }
 
+/** Whether `sealed` already holds this passcode (a re-sent form changes nothing). */
+function sealsSame(secrets: SecretBox, sealed: string | null | undefined, passcode: string): boolean {
+  if (!sealed) return false;
+  try {
+    return secrets.open(sealed) === passcode;
+  } catch {
+    return false;
+  }
+}
+
 /** Creates a site for one of the firm's clients; a passcode given is sealed before it is stored. */
 export async function createSite(ctx: Ctx, input: SiteValues, secrets: SecretBox): Promise<Site> {
   await requireClientOfFirm(ctx, input.clientId);
@@ -101,7 +111,7 @@ export async function updateSite(ctx: Ctx, site: Site, patch: SitePatch, secrets
   if (patch.passcode === null && site.passcodeCipher) {
     site.passcodeCipher = null;
     passcodeChange = 'cleared';
-  } else if (typeof patch.passcode === 'string') {
+  } else if (typeof patch.passcode === 'string' && !sealsSame(secrets, site.passcodeCipher, patch.passcode)) {
     site.passcodeCipher = secrets.seal(patch.passcode);
     passcodeChange = 'set';
   }

@@ -87,7 +87,7 @@ const STATUS_RANK: Record<ZoneStatus, number> = { active: 0, bypassed: 1, remove
 export function compareZones(a: Zone, b: Zone): number {
   return (
     a.number - b.number ||
-    STATUS_RANK[a.status] - STATUS_RANK[b.status] ||
+    STATUS_RANK[a.status as ZoneStatus] - STATUS_RANK[b.status as ZoneStatus] ||
     a.description.localeCompare(b.description) ||
     (a.serial ?? '').localeCompare(b.serial ?? '') ||
     (a.input ?? 1) - (b.input ?? 1) ||

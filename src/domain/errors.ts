@@ -11,6 +11,7 @@ export const ERROR_STATUS = {
   not_found: 404,
   conflict: 409,
   email_taken: 409,
+  zone_number_taken: 409,
   too_large: 413,
   unsupported_type: 415,
   rate_limited: 429,

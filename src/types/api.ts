@@ -199,25 +199,67 @@ export interface ApiZone {
   batteryChangedOn: string | null;
   manufacturedOn: string | null;
   life: { batteryDueOn: string | null; endOfLifeOn: string | null; state: DeviceLifeState };
-  /** The same serial on other panels of the firm (a note, not an error). */
-  elsewhere?: string[];
+  /** The same serial in service on other panels of the firm (a note, not an error). */
+  elsewhere?: (ApiSerialElsewhere | string)[];
+  /** Notes that did not block saving, e.g. a number outside the wireless range. */
+  warnings?: ApiFieldNote[];
   createdAt?: string;
   updatedAt?: string;
 }
 
+export interface ApiSerialElsewhere {
+  zoneId: string;
+  panelId: string;
+  siteId: string;
+  panelLabel: string;
+  siteName: string;
+  number: number;
+  note: string;
+}
+
+export interface ApiFieldNote {
+  code: string;
+  field: string | null;
+  message: string;
+}
+
+/** One changed field of a change-log entry or an import row. */
+export interface ApiFieldChange {
+  field: string;
+  from: unknown;
+  to: unknown;
+}
+
+/**
+ * One entry of a panel's change log. Zone changes carry zone fields; panel settings changes
+ * carry `settings.<key>` fields and no zone. The changes come as a list of { field, from, to }
+ * (or, from older servers, an object of [old, new] pairs), the time as `at` (or `createdAt`).
+ */
 export interface ApiZoneChange {
   id: string;
   zoneId: string | null;
   zoneNumber: number | null;
   action: 'created' | 'updated' | 'removed' | 'deleted' | 'imported' | 'programmed';
-  changes: Record<string, [unknown, unknown]>;
+  changes: ApiFieldChange[] | Record<string, [unknown, unknown]>;
   actorName: string;
-  createdAt: string;
+  at?: string;
+  createdAt?: string;
 }
 
-/** The answer of POST /api/panels/:panelId/zones/import (dry run or real). */
+/** One row of an import's dry run: what the file says and what Mullion will do with it. */
+export interface ApiZoneImportRow extends Partial<Omit<ApiZone, 'life' | 'warnings'>> {
+  row: number;
+  action: 'create' | 'update' | 'unchanged';
+  zoneId: string | null;
+  changes?: ApiFieldChange[];
+  warnings?: ApiFieldNote[];
+}
+
+/** The answer of POST /api/panels/:panelId/zones/import: rows only on a dry run. */
 export interface ApiZoneImportResult {
-  rows: Partial<ApiZone>[];
+  dryRun?: boolean;
+  rows?: ApiZoneImportRow[];
   creates: number;
   updates: number;
+  unchanged?: number;
 }

@@ -7,8 +7,16 @@ import type { StaffRole } from '@domain/roles';
 import type { TenantState } from '@domain/tenant-states';
 import { trialEndsAt } from '@domain/tenant-states';
 import { hashPassword } from '@server/auth/passwords';
+import { Client } from '@server/models/Client';
+import { EmergencyContact } from '@server/models/EmergencyContact';
+import { Site } from '@server/models/Site';
 import { Tenant } from '@server/models/Tenant';
 import { User } from '@server/models/User';
+import { Panel } from '@server/models/Panel';
+import { Zone } from '@server/models/Zone';
+import { CP01_DEFAULTS, type PanelSettings } from '@domain/cp01';
+import { zoneDefaultsFor } from '@domain/zones';
+import type { DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
 
 export const TEST_PASSWORD = 'correct horse battery';
 let passwordHash: Promise<string> | undefined;
@@ -53,4 +61,143 @@ export async function buildFirmWithStaff(overrides: Partial<{ state: TenantState
     buildUser(firm, 'technician'),
   ]);
   return { firm, owner: owner, coordinator: coordinator, technician: technician };
+}
+
+// ---- The installed base: clients, sites, emergency contacts ----
+
+/** A client record of this firm (invented household, .example e-mail). */
+export async function buildClient(
+  tenant: Tenant,
+  overrides: Partial<{ name: string; email: string; phone: string; notes: string; status: 'active' | 'cancelled' }> = {},
+): Promise<Client> {
+  const id = unique();
+  return Client.create({
+    tenantId: tenant.id,
+    name: overrides.name ?? `Household ${id}`,
+    email: overrides.email ?? `household-${id}@clients.example`,
+    phone: overrides.phone ?? '+15550104400',
+    notes: overrides.notes ?? 'Gate code is with the office.',
+    status: overrides.status ?? 'active',
+  });
+}
+
+/** A homeowner sign-in (role `client`) linked to this client record. */
+export async function buildClientUser(tenant: Tenant, client: Client): Promise<User> {
+  const user = await buildUser(tenant, 'client');
+  user.clientId = client.id;
+  await user.save();
+  return user;
+}
+
+/** A site of this client, with an invented address; `passcodeCipher` only when given. */
+export async function buildSite(
+  tenant: Tenant,
+  client: Client,
+  overrides: Partial<{ name: string; city: string; addressLine1: string; monitoringAccount: string; accessNotes: string; passcodeCipher: string | null }> = {},
+): Promise<Site> {
+  const id = unique();
+  return Site.create({
+    tenantId: tenant.id,
+    clientId: client.id,
+    name: overrides.name ?? `Home ${id}`,
+    addressLine1: overrides.addressLine1 ?? '14 Quarry Lane',
+    city: overrides.city ?? 'Ashby Vale',
+    region: 'NE',
+    postalCode: '68001',
+    timeZone: 'America/Chicago',
+    monitoringAccount: overrides.monitoringAccount ?? `MA-${id.slice(0, 6).toUpperCase()}`,
+    accessNotes: overrides.accessNotes ?? 'Key safe behind the shed.',
+    passcodeCipher: overrides.passcodeCipher ?? null,
+  });
+}
+
+/** An emergency contact of this site at `position` (the caller keeps positions 1..n). */
+export async function buildContact(site: Site, position: number, overrides: Partial<{ name: string; phone: string }> = {}): Promise<EmergencyContact> {
+  return EmergencyContact.create({
+    tenantId: site.tenantId,
+    siteId: site.id,
+    position,
+    name: overrides.name ?? `Contact ${position}`,
+    relation: 'Neighbour',
+    phone: overrides.phone ?? `+1555010${String(4400 + position)}`,
+  });
+}
+
+/** A firm with its three staff, one client record with a site, and that client's sign-in. */
+export async function buildFirmWithSite() {
+  const staff = await buildFirmWithStaff();
+  const client = await buildClient(staff.firm);
+  const site = await buildSite(staff.firm, client);
+  const clientUser = await buildClientUser(staff.firm, client);
+  return { ...staff, client, site, clientUser };
+}
+
+// ---- Panels and zones ----
+
+/** A panel at this site: 64 zones, wireless 9–64, cellular, CP-01 default settings unless given. */
+export async function buildPanel(
+  site: Site,
+  overrides: Partial<{
+    label: string;
+    makeModel: string;
+    zoneCapacity: number;
+    wirelessZoneFrom: number;
+    wirelessZoneTo: number;
+    settings: Partial<PanelSettings>;
+    changedSinceProgrammed: boolean;
+  }> = {},
+): Promise<Panel> {
+  return Panel.create({
+    tenantId: site.tenantId,
+    siteId: site.id,
+    label: overrides.label ?? 'Main panel',
+    makeModel: overrides.makeModel ?? 'Test panel TP-64',
+    zoneCapacity: overrides.zoneCapacity ?? 64,
+    wirelessZoneFrom: overrides.wirelessZoneFrom ?? 9,
+    wirelessZoneTo: overrides.wirelessZoneTo ?? 64,
+    commPath: 'cellular',
+    installedOn: '2025-03-14',
+    settings: { ...CP01_DEFAULTS, ...(overrides.settings ?? {}) },
+    changedSinceProgrammed: overrides.changedSinceProgrammed ?? false,
+  });
+}
+
+/** A zone on this panel; behaviour from the device type's defaults unless given. */
+export async function buildZone(
+  panel: Panel,
+  overrides: Partial<{
+    number: number;
+    description: string;
+    deviceType: DeviceType;
+    zoneType: ZoneType;
+    serial: string;
+    input: number;
+    status: ZoneStatus;
+    batteryType: string | null;
+    installedOn: string | null;
+    batteryChangedOn: string | null;
+    manufacturedOn: string | null;
+  }> = {},
+): Promise<Zone> {
+  const deviceType = overrides.deviceType ?? 'window_contact';
+  const defaults = zoneDefaultsFor(deviceType);
+  return Zone.create({
+    tenantId: panel.tenantId,
+    siteId: panel.siteId,
+    panelId: panel.id,
+    number: overrides.number ?? panel.wirelessZoneFrom,
+    description: overrides.description ?? 'Den window',
+    deviceType,
+    zoneType: overrides.zoneType ?? defaults.zoneType,
+    serial: overrides.serial ?? '',
+    input: overrides.input ?? 1,
+    reportsToMonitoring: defaults.reportsToMonitoring,
+    chime: defaults.chime,
+    supervised: defaults.supervised,
+    status: overrides.status ?? 'active',
+    installedOn: overrides.installedOn ?? null,
+    batteryType: overrides.batteryType ?? null,
+    batteryChangedOn: overrides.batteryChangedOn ?? null,
+    manufacturedOn: overrides.manufacturedOn ?? null,
+  });
 }

@@ -1,4 +1,4 @@
-import { Router, type NextFunction, type Request, type Response } from 'express';
+import { Router, type Request, type Response } from 'express';
 import multer from 'multer';
 import { Op, type WhereOptions } from 'sequelize';
 import { subject } from '@domain/abilities';
@@ -70,7 +70,8 @@ export function documentsRouter(deps: AppDeps): Router {
         if (err instanceof multer.MulterError) {
           return reject(errors.validation(`Upload not accepted: ${err.message}.`, { [err.field ?? 'file']: err.message }));
         }
-        reject(err instanceof Error ? err : new Error(String(err)));
+        // a malformed or cut-off multipart body is bad input, not a server fault
+        reject(errors.validation('The upload could not be read. Choose the file again and retry.', { file: 'The upload was incomplete or malformed.' }));
       });
     });
   }
@@ -95,7 +96,7 @@ export function documentsRouter(deps: AppDeps): Router {
     res.json({ data: rows.map((d) => presentDocument(d, { audience })), page: pageOf(query.page, query.pageSize, count) });
   });
 
-  router.post('/sites/:siteId/documents', validate({ params: siteDocumentsParams }), async (req: Request, res: Response, _next: NextFunction) => {
+  router.post('/sites/:siteId/documents', validate({ params: siteDocumentsParams }), async (req: Request, res: Response) => {
     const { params } = inputOf(req, { params: siteDocumentsParams });
     // authorize before reading the upload
     const site = await loadSite(req, params.siteId);

@@ -39,7 +39,7 @@ export function FirmLayout() {
 
   return (
     <AbilityProvider value={ability}>
-      <div className="min-h-dvh md:grid md:grid-cols-[15rem_1fr]">
+      <div className="min-h-dvh md:grid md:grid-cols-[15rem_1fr] md:bg-[linear-gradient(to_right,var(--color-ink)_15rem,transparent_15rem)]">
         <aside className="hidden bg-ink text-paper md:sticky md:top-0 md:flex md:h-dvh md:flex-col">
           <div className="flex items-center gap-2 px-4 pt-5 pb-4">
             <MullionMark className="size-6 text-paper/20" />

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { Input } from './input';
 
 /**
@@ -20,13 +20,9 @@ export function MoneyInput({
   'aria-describedby'?: string;
 }) {
   const toText = (cents: number | null | undefined) => (cents === null || cents === undefined ? '' : (cents / 100).toFixed(2));
-  const [text, setText] = useState(toText(value));
-  useEffect(() => {
-    setText((current) => {
-      const parsed = current.trim() === '' ? null : Math.round(Number(current) * 100);
-      return parsed === (value ?? null) ? current : toText(value);
-    });
-  }, [value]);
+  // What the person is typing, while they type; otherwise the value itself.
+  const [draft, setDraft] = useState<string | null>(null);
+  const text = draft ?? toText(value);
   return (
     <div className="relative">
       <span className="pointer-events-none absolute top-1/2 left-3 -translate-y-1/2 text-sm text-slate-500">$</span>
@@ -39,12 +35,12 @@ export function MoneyInput({
         value={text}
         onChange={(e) => {
           const next = e.target.value.replace(/[^0-9.]/g, '');
-          setText(next);
+          setDraft(next);
           if (next.trim() === '') onChange(null);
           else if (!Number.isNaN(Number(next))) onChange(Math.round(Number(next) * 100));
         }}
         onBlur={() => {
-          setText(toText(value));
+          setDraft(null);
           onBlur?.();
         }}
       />

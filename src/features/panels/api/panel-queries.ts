@@ -2,7 +2,7 @@ import { keepPreviousData, queryOptions, useMutation, useQueryClient } from '@ta
 import type { PanelSettings } from '@domain/cp01';
 import type { PanelInput } from '@domain/schemas/panel';
 import { api } from '@/lib/api-client';
-import type { ApiPanel, ApiSite, ApiZoneChange, ListResponse } from '@/types/api';
+import type { ApiPanel, ApiZoneChange, ListResponse } from '@/types/api';
 
 export const panelKeys = {
   all: ['panels'] as const,
@@ -12,7 +12,6 @@ export const panelKeys = {
   detail: (panelId: string) => [...panelKeys.details(), panelId] as const,
   changes: (panelId: string) => [...panelKeys.all, 'changes', panelId] as const,
   changePage: (panelId: string, page: number) => [...panelKeys.changes(panelId), { page }] as const,
-  site: (siteId: string) => [...panelKeys.all, 'site', siteId] as const,
 };
 
 /** The panels of one site (a site has one or a few: no paging needed). */
@@ -36,14 +35,6 @@ export const panelChangesQuery = (panelId: string, page: number) =>
     queryFn: ({ signal }) =>
       api.get<ListResponse<ApiZoneChange>>(`/api/panels/${panelId}/changes?page=${page}&pageSize=${CHANGE_PAGE_SIZE}`, signal),
     placeholderData: keepPreviousData,
-  });
-
-/** The panel's site, for the page header (name and a link back). */
-export const panelSiteQuery = (siteId: string) =>
-  queryOptions({
-    queryKey: panelKeys.site(siteId),
-    queryFn: ({ signal }) => api.get<{ data: ApiSite }>(`/api/sites/${siteId}`, signal).then((r) => r.data),
-    staleTime: 5 * 60_000,
   });
 
 export const panelUrls = {

@@ -4,8 +4,8 @@ import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 
 const SEVERITY: Record<Cp01Finding['severity'], { word: string; tone: BadgeTone; icon: typeof Info }> = {
-  error: { word: 'Outside range', tone: 'bad', icon: AlertOctagon },
-  warning: { word: 'Check', tone: 'warn', icon: AlertTriangle },
+  error: { word: 'Error', tone: 'bad', icon: AlertOctagon },
+  warning: { word: 'Warning', tone: 'warn', icon: AlertTriangle },
   info: { word: 'Note', tone: 'neutral', icon: Info },
 };
 

@@ -97,14 +97,14 @@ function PanelForm({ siteId, panel, firstPanel, onDone }: { siteId: string; pane
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormError message={formError} />
-      <div className="grid gap-4 sm:grid-cols-2">
-        <FormField label="Name" error={e.label?.message} hint="How staff tell the panels of a site apart.">
+      <div className="grid grid-cols-2 gap-x-3 gap-y-4 sm:gap-x-4">
+        <FormField label="Name" error={e.label?.message} hint="How staff tell the panels of a site apart." className="col-span-2 sm:col-span-1">
           <Input autoComplete="off" placeholder="Main panel" {...register('label')} />
         </FormField>
-        <FormField label="Make and model" error={e.makeModel?.message}>
+        <FormField label="Make and model" error={e.makeModel?.message} className="col-span-2 sm:col-span-1">
           <Input autoComplete="off" {...register('makeModel')} />
         </FormField>
-        <FormField label="Zone capacity" error={e.zoneCapacity?.message} hint="How many zones the panel holds.">
+        <FormField label="Zone capacity" error={e.zoneCapacity?.message} hint="Zones the panel holds.">
           <Input type="number" inputMode="numeric" min={1} max={999} {...register('zoneCapacity', { valueAsNumber: true })} />
         </FormField>
         <FormField label="Communication path" error={e.commPath?.message}>
@@ -122,7 +122,7 @@ function PanelForm({ siteId, panel, firstPanel, onDone }: { siteId: string; pane
         <FormField label="Last wireless zone" error={e.wirelessZoneTo?.message} hint="New zones take the next free number in this range.">
           <Input type="number" inputMode="numeric" min={1} max={999} {...register('wirelessZoneTo', { valueAsNumber: true })} />
         </FormField>
-        <FormField label="Installed on" error={e.installedOn?.message}>
+        <FormField label="Installed on" error={e.installedOn?.message} className="col-span-2 sm:col-span-1">
           <Input type="date" {...register('installedOn')} />
         </FormField>
       </div>

@@ -80,7 +80,7 @@ export function PanelSettingsForm({ panel, canEdit }: { panel: ApiPanel; canEdit
         <FormError message={formError} />
         <fieldset disabled={!canEdit} className="space-y-4">
           <legend className="sr-only">Panel settings</legend>
-          <div className="grid gap-4 sm:grid-cols-2">
+          <div className="grid grid-cols-2 gap-x-3 gap-y-4 sm:gap-x-4">
             {NUMBER_FIELDS.map((f) => {
               const finding = findingFor(f.key);
               return (

@@ -12,17 +12,18 @@ export const zoneKeys = {
   detail: (zoneId: string) => [...zoneKeys.details(), zoneId] as const,
 };
 
-const FETCH_PAGE_SIZE = 100;
+/** The API's largest zone page: a panel holds at most 999 zones, so one request normally brings them all. */
+const FETCH_PAGE_SIZE = 1000;
 
 /**
- * Every zone of a panel (a panel holds up to a few hundred): the list is sorted and paged on
- * the client, so the pages of the API are read one after another until all are in.
+ * Every zone of a panel: the list is sorted and paged on the client, so should the API ever
+ * answer in several pages, they are read one after another until all are in.
  */
 async function fetchAllZones(panelId: string, signal: AbortSignal): Promise<ApiZone[]> {
   const zones: ApiZone[] = [];
   for (let page = 1; ; page++) {
     const res = await api.get<ListResponse<ApiZone> | { data: ApiZone[]; page?: undefined }>(
-      `/api/panels/${panelId}/zones?page=${page}&pageSize=${FETCH_PAGE_SIZE}&sort=number`,
+      `/api/panels/${panelId}/zones?page=${page}&pageSize=${FETCH_PAGE_SIZE}`,
       signal,
     );
     zones.push(...res.data);

@@ -24,13 +24,18 @@ export function ZoneSwitches({ zone }: { zone: Pick<ApiZone, 'reportsToMonitorin
       </span>
     );
   return (
-    <span className="inline-flex flex-wrap gap-1">
+    <span className="inline-flex gap-0.5 whitespace-nowrap">
       {on.map((s) => (
-        <abbr key={s.key} title={s.long} className="rounded border border-line bg-paper px-1.5 py-px text-xs font-medium text-ink no-underline">
+        <abbr key={s.key} title={s.long} className="rounded border border-line bg-paper px-1 text-xs font-medium text-ink no-underline">
           <span aria-hidden="true">{s.short}</span>
           <span className="sr-only">{s.long}</span>
         </abbr>
       ))}
     </span>
   );
+}
+
+/** "Serial 0412877 is also zone 4 on Panel 1 at 12 Elm Street." — one note per other place the serial is in service. */
+export function elsewhereNotes(zone: Pick<ApiZone, 'elsewhere'>): string[] {
+  return (zone.elsewhere ?? []).map((e) => (typeof e === 'string' ? e : e.note));
 }

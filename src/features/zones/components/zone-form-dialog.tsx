@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, type DefaultValues } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { RotateCcw } from 'lucide-react';
@@ -25,6 +25,7 @@ import { applyServerErrors } from '@/lib/form-errors';
 import type { ApiPanel, ApiZone } from '@/types/api';
 import { CheckField } from '@/features/panels/components/check-field';
 import { useCreateZone, useUpdateZone } from '../api/zone-queries';
+import { elsewhereNotes } from './zone-bits';
 import { isLifeSafetyDevice } from './zone-life-badge';
 
 /** The zone form edits every field but the room/opening link (that comes with the premises). */
@@ -58,7 +59,7 @@ function followsDefaults(zone: ApiZone): boolean {
   return BEHAVIOUR_KEYS.every((key) => zone[key] === defaults[key]);
 }
 
-function initialValues(panel: ApiPanel, zone: ApiZone | undefined): ZoneFormInput {
+function initialValues(panel: ApiPanel, zone: ApiZone | undefined): DefaultValues<ZoneFormInput> {
   if (zone) {
     return {
       number: zone.number,
@@ -154,7 +155,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
         { zoneId: zone.id, input: values },
         {
           onSuccess: (saved) => {
-            toast.success(`Zone ${saved.number} “${saved.description}” saved.`);
+            toast.success([`Zone ${saved.number} “${saved.description}” saved.`, ...elsewhereNotes(saved)].join(' '));
             onDone();
           },
           onError: failed,
@@ -163,7 +164,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
     } else {
       create.mutate(values, {
         onSuccess: (saved) => {
-          toast.success(`Zone ${saved.number} “${saved.description}” added.`);
+          toast.success([`Zone ${saved.number} “${saved.description}” added.`, ...elsewhereNotes(saved)].join(' '));
           onDone();
         },
         onError: failed,
@@ -172,7 +173,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
   });
 
   const legend = 'mb-3 text-xs font-semibold tracking-wide text-slate-500 uppercase';
-  const elsewhere = zone?.elsewhere ?? [];
+  const elsewhere = zone ? elsewhereNotes(zone) : [];
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-5">
@@ -185,7 +186,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
             <Input type="number" inputMode="numeric" min={1} max={panel.zoneCapacity} className="tabular-nums" {...register('number', { valueAsNumber: true })} />
           </FormField>
           <FormField label="Description" error={e.description?.message}>
-            <Input maxLength={40} autoComplete="off" placeholder="Front door" {...register('description')} />
+            <Input maxLength={40} autoComplete="off" placeholder="Like “Den window”" {...register('description')} />
           </FormField>
         </div>
         {numberHint && !e.number && <p className={numberWarning ? 'mt-1 text-xs font-medium text-ochre-600' : 'mt-1 text-xs text-slate-500'}>{numberHint}</p>}
@@ -257,10 +258,10 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
               ))}
             </Select>
           </FormField>
-          <div className="grid gap-3 sm:grid-cols-3">
+          <div className="space-y-2.5">
             <CheckField label="Reports to monitoring center" {...register('reportsToMonitoring', { onChange: markByHand })} />
-            <CheckField label="Chime" hint="Keypad announces it while disarmed." {...register('chime', { onChange: markByHand })} />
-            <CheckField label="Supervised" hint="Trouble if it stops checking in." {...register('supervised', { onChange: markByHand })} />
+            <CheckField label="Chime" hint="The keypad announces it when opened while disarmed." {...register('chime', { onChange: markByHand })} />
+            <CheckField label="Supervised" hint="The panel shows trouble if the device stops checking in." {...register('supervised', { onChange: markByHand })} />
           </div>
           <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-xs text-slate-500" aria-live="polite">
             {byHand ? (

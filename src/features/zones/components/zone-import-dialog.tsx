@@ -1,13 +1,14 @@
 import { useRef, useState } from 'react';
 import { AlertTriangle, FileUp } from 'lucide-react';
-import { DEVICE_TYPE_LABELS, ZONE_TYPE_LABELS, type DeviceType, type ZoneType } from '@domain/devices';
+import { DEVICE_TYPE_LABELS, ZONE_TYPE_LABELS } from '@domain/devices';
 import { ZONE_CSV_COLUMNS } from '@domain/schemas/zone';
+import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { FormError } from '@/components/ui/form-field';
 import { useToast } from '@/components/ui/toast';
 import { ApiError } from '@/lib/api-client';
-import type { ApiZoneImportResult } from '@/types/api';
+import type { ApiZoneImportResult, ApiZoneImportRow } from '@/types/api';
 import { useImportZones } from '../api/zone-queries';
 
 export interface RowError {
@@ -127,8 +128,8 @@ function ZoneImport({ panelId, onDone }: { panelId: string; onDone: () => void }
 
       {stage.kind === 'choose' && (
         <p className="text-xs text-slate-500">
-          One row per zone, with a header row naming the columns: <span className="font-mono break-words">{ZONE_CSV_COLUMNS.join(', ')}</span>. Export CSV gives a file in this form. A row
-          whose number is already on the panel updates that zone.
+          One row per zone under a header row naming the columns: <span className="font-mono break-words">{ZONE_CSV_COLUMNS.join(', ')}</span>. Only description and
+          deviceType are required. A row whose number is in use on the panel updates that zone; nothing is deleted. Export CSV gives a file in this form.
         </p>
       )}
 
@@ -180,54 +181,70 @@ function ZoneImport({ panelId, onDone }: { panelId: string; onDone: () => void }
   );
 }
 
+const ACTION_BADGES: Record<ApiZoneImportRow['action'], { word: string; tone: BadgeTone }> = {
+  create: { word: 'New', tone: 'ok' },
+  update: { word: 'Update', tone: 'brass' },
+  unchanged: { word: 'No change', tone: 'neutral' },
+};
+
 function Preview({ result }: { result: ApiZoneImportResult }) {
   const total = result.creates + result.updates;
+  const unchanged = result.unchanged ?? 0;
+  const rows = result.rows ?? [];
   return (
     <div className="space-y-2">
       <p className="text-sm">
-        <span className="font-medium">The file is valid: {zonesWord(total)}</span>
+        <span className="font-medium">{total === 0 ? 'The file matches the panel: nothing to import.' : `The file is valid: ${zonesWord(total)} to import`}</span>
         <span className="text-slate-500">
           {' '}
-          · {result.creates} new, {result.updates} updated
+          · {result.creates} new, {result.updates} updated{unchanged > 0 ? `, ${unchanged} unchanged` : ''}
         </span>
       </p>
-      <div className="max-h-64 overflow-auto rounded-md border border-line">
-        <table className="w-full border-collapse text-xs">
-          <caption className="sr-only">Zones in the file</caption>
-          <thead className="sticky top-0 bg-card">
-            <tr className="border-b border-line text-left text-slate-500">
-              <th scope="col" className="px-2 py-1.5 font-semibold">
-                Zone
-              </th>
-              <th scope="col" className="px-2 py-1.5 font-semibold">
-                Description
-              </th>
-              <th scope="col" className="px-2 py-1.5 font-semibold">
-                Device / zone type
-              </th>
-              <th scope="col" className="px-2 py-1.5 font-semibold">
-                Serial
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {result.rows.map((row, i) => (
-              <tr key={`${row.number ?? ''}-${i}`} className="border-b border-line last:border-b-0">
-                <td className="px-2 py-1 tabular-nums">{row.number ?? '—'}</td>
-                <td className="px-2 py-1">{row.description ?? ''}</td>
-                <td className="px-2 py-1">
-                  {row.deviceType ? (DEVICE_TYPE_LABELS[row.deviceType as DeviceType] ?? row.deviceType) : '—'}
-                  <span className="block text-slate-500">{row.zoneType ? (ZONE_TYPE_LABELS[row.zoneType as ZoneType] ?? row.zoneType) : 'Default for the device'}</span>
-                </td>
-                <td className="px-2 py-1 font-mono">
-                  {row.serial || '—'}
-                  {row.input !== undefined && <span className="font-sans text-slate-500"> · in {row.input}</span>}
-                </td>
+      {rows.length > 0 && (
+        <div className="max-h-64 overflow-auto rounded-md border border-line">
+          <table className="w-full border-collapse text-xs">
+            <caption className="sr-only">Zones in the file</caption>
+            <thead className="sticky top-0 bg-card">
+              <tr className="border-b border-line text-left text-slate-500">
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Zone
+                </th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Description
+                </th>
+                <th scope="col" className="hidden px-2 py-1.5 font-semibold sm:table-cell">
+                  Device / zone type
+                </th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  Serial
+                </th>
+                <th scope="col" className="px-2 py-1.5 font-semibold">
+                  <span className="sr-only">What happens</span>
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+            </thead>
+            <tbody>
+              {rows.map((row) => {
+                const badge = ACTION_BADGES[row.action];
+                return (
+                  <tr key={row.row} className="border-b border-line align-top last:border-b-0">
+                    <td className="px-2 py-1 tabular-nums">{row.number ?? '—'}</td>
+                    <td className="px-2 py-1">{row.description ?? ''}</td>
+                    <td className="hidden px-2 py-1 sm:table-cell">
+                      {row.deviceType ? (DEVICE_TYPE_LABELS[row.deviceType] ?? row.deviceType) : '—'}
+                      {row.zoneType && <span className="block text-slate-500">{ZONE_TYPE_LABELS[row.zoneType] ?? row.zoneType}</span>}
+                    </td>
+                    <td className="px-2 py-1 font-mono">{row.serial || '—'}</td>
+                    <td className="px-2 py-1 text-right">
+                      <Badge tone={badge.tone}>{badge.word}</Badge>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
     </div>
   );
 }

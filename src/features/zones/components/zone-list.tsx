@@ -18,11 +18,14 @@ import { SearchField } from '@/components/ui/search-field';
 import { cn } from '@/lib/cn';
 import type { ApiZone } from '@/types/api';
 import { ZoneLifeBadge } from './zone-life-badge';
-import { ZONE_SWITCHES, ZoneStatusBadge, ZoneSwitches } from './zone-bits';
+import { elsewhereNotes, ZONE_SWITCHES, ZoneStatusBadge, ZoneSwitches } from './zone-bits';
 
 export const ZONE_PAGE_SIZE = 50;
 
-type ZoneColumnMeta = { className?: string; align?: 'right' };
+type ZoneColumnMeta = { align?: 'right' };
+
+/** Responsive widths and hiding, by column id. */
+const COLUMN_CLASSES: Record<string, string> = { description: 'min-w-28', zoneType: 'min-w-28', input: 'hidden 2xl:table-cell' };
 
 interface ZoneListProps {
   zones: ApiZone[];
@@ -40,7 +43,7 @@ const SORTS = [
 
 function SerialCell({ zone }: { zone: ApiZone }) {
   if (!zone.serial) return <span className="text-xs text-slate-500">Not yet</span>;
-  const notes = zone.elsewhere ?? [];
+  const notes = elsewhereNotes(zone);
   return (
     <span className="inline-flex items-center gap-1">
       <span className="font-mono">{zone.serial}</span>
@@ -62,7 +65,7 @@ function zoneMatches(row: Row<ApiZone>, _columnId: string, query: unknown): bool
 }
 
 /**
- * A panel's zones: a dense table on desktop, one card per zone on phones. The whole list is
+ * A panel's zones: a dense table on desktop, one card per zone on phones and tablets. The whole list is
  * loaded, so sorting, finding and paging (50 a page) happen here.
  */
 export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
@@ -75,9 +78,28 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
       { id: 'number', accessorKey: 'number', header: 'Zone', cell: ({ row }) => <span className="font-semibold tabular-nums">{row.original.number}</span> },
       { id: 'description', accessorKey: 'description', header: 'Description', cell: ({ row }) => <span className="font-medium">{row.original.description}</span> },
       { id: 'deviceType', accessorFn: (z) => DEVICE_TYPE_LABELS[z.deviceType], header: 'Device type' },
-      { id: 'zoneType', accessorFn: (z) => ZONE_TYPE_LABELS[z.zoneType], header: 'Zone type', meta: { className: 'min-w-36' } satisfies ZoneColumnMeta },
-      { id: 'serial', header: 'Serial', enableSorting: false, cell: ({ row }) => <SerialCell zone={row.original} /> },
-      { id: 'input', accessorKey: 'input', header: 'Input', enableSorting: false, meta: { className: 'hidden xl:table-cell' } satisfies ZoneColumnMeta, cell: ({ row }) => <span className="tabular-nums">{row.original.input}</span> },
+      { id: 'zoneType', accessorFn: (z) => ZONE_TYPE_LABELS[z.zoneType], header: 'Zone type' },
+      {
+        id: 'serial',
+        // Below 2xl the input column is hidden and the input follows the serial.
+        header: () => (
+          <>
+            Serial<span className="2xl:hidden"> / input</span>
+          </>
+        ),
+        enableSorting: false,
+        cell: ({ row }) => (
+          <span className="whitespace-nowrap">
+            <SerialCell zone={row.original} />
+            <span className="text-slate-500 2xl:hidden">
+              <span aria-hidden="true"> / </span>
+              <span className="sr-only">, input </span>
+              {row.original.input}
+            </span>
+          </span>
+        ),
+      },
+      { id: 'input', accessorKey: 'input', header: 'Input', enableSorting: false, cell: ({ row }) => <span className="tabular-nums">{row.original.input}</span> },
       { id: 'switches', header: 'Switches', enableSorting: false, cell: ({ row }) => <ZoneSwitches zone={row.original} /> },
       { id: 'status', header: 'Status', enableSorting: false, cell: ({ row }) => <ZoneStatusBadge status={row.original.status} /> },
       { id: 'life', header: 'Device life', enableSorting: false, cell: ({ row }) => <ZoneLifeBadge zone={row.original} /> },
@@ -134,7 +156,7 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
             }}
           />
         </div>
-        <div className="flex items-center gap-2 md:hidden">
+        <div className="flex items-center gap-2 lg:hidden">
           <label htmlFor="zone-sort" className="shrink-0 text-sm text-slate-500">
             Sort by
           </label>
@@ -160,8 +182,8 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
       </div>
 
       <div className="rounded-md border border-line bg-card">
-        {/* Desktop and tablet: the dense table. */}
-        <div className="hidden overflow-x-auto md:block">
+        {/* Desktop: the dense table. */}
+        <div className="relative hidden overflow-x-auto lg:block">
           <table className="w-full border-collapse text-sm">
             <caption className="sr-only">Zones of this panel</caption>
             <thead>
@@ -175,7 +197,7 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
                         key={header.id}
                         scope="col"
                         aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                        className={cn('h-9 px-3 text-left text-xs font-semibold whitespace-nowrap text-slate-500', meta?.className, meta?.align === 'right' && 'text-right')}
+                        className={cn('h-9 px-2 text-left text-xs font-semibold whitespace-nowrap text-slate-500 first:pl-3 last:pr-3', COLUMN_CLASSES[header.column.id], meta?.align === 'right' && 'text-right')}
                       >
                         {header.column.getCanSort() ? (
                           <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 hover:text-ink">
@@ -203,7 +225,7 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
                   {row.getVisibleCells().map((cell) => {
                     const meta = cell.column.columnDef.meta as ZoneColumnMeta | undefined;
                     return (
-                      <td key={cell.id} className={cn('h-9 px-3 py-1.5 align-middle', meta?.className, meta?.align === 'right' && 'text-right')}>
+                      <td key={cell.id} className={cn('h-9 px-2 py-1 align-middle first:pl-3 last:pr-3', COLUMN_CLASSES[cell.column.id], meta?.align === 'right' && 'text-right')}>
                         {flexRender(cell.column.columnDef.cell, cell.getContext())}
                       </td>
                     );
@@ -214,8 +236,8 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
           </table>
         </div>
 
-        {/* Phones: one card per zone. */}
-        <ul className="divide-y divide-line md:hidden" aria-label="Zones of this panel">
+        {/* Phones and tablets: one card per zone. */}
+        <ul className="divide-y divide-line lg:hidden" aria-label="Zones of this panel">
           {rows.map((row) => (
             <ZoneCard key={row.id} zone={row.original} canEdit={canEdit} onEdit={onEdit} onRemove={onRemove} />
           ))}
@@ -250,10 +272,10 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
 function ZoneActions({ zone, onEdit, onRemove }: { zone: ApiZone; onEdit: (z: ApiZone) => void; onRemove: (z: ApiZone) => void }) {
   return (
     <div className="flex justify-end gap-0.5">
-      <Button variant="ghost" size="sm" className="px-2" onClick={() => onEdit(zone)} aria-label={`Edit zone ${zone.number}, ${zone.description}`} title="Edit">
+      <Button variant="ghost" size="sm" className="w-8 px-0" onClick={() => onEdit(zone)} aria-label={`Edit zone ${zone.number}, ${zone.description}`} title="Edit">
         <Pencil className="size-4" aria-hidden="true" />
       </Button>
-      <Button variant="ghost" size="sm" className="px-2 text-clay-600" onClick={() => onRemove(zone)} aria-label={`Remove zone ${zone.number}, ${zone.description}`} title="Remove">
+      <Button variant="ghost" size="sm" className="w-8 px-0 text-clay-600" onClick={() => onRemove(zone)} aria-label={`Remove zone ${zone.number}, ${zone.description}`} title="Remove">
         <Trash2 className="size-4" aria-hidden="true" />
       </Button>
     </div>
