@@ -23,9 +23,9 @@ function navLabels(): string[] {
 
 describe('firm navigation shows only what the role may use', () => {
   const cases: [Role, string[]][] = [
-    ['owner', ['Overview', 'Staff', 'Firm settings']],
-    ['coordinator', ['Overview', 'Staff']],
-    ['technician', ['Overview', 'Staff']],
+    ['owner', ['Overview', 'Clients', 'Staff', 'Firm settings']],
+    ['coordinator', ['Overview', 'Clients', 'Staff']],
+    ['technician', ['Overview', 'Clients', 'Staff']],
   ];
   it.each(cases)('%s sees %j', (role, expected) => {
     renderRoutes([{ path: '/', element: <FirmLayout /> }], { session: sessionFor(role) });

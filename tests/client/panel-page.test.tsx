@@ -1,6 +1,7 @@
 import { Suspense } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { createAbility } from '@domain/abilities';
 import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
 import PanelPage from '@/app/routes/firm/panel';
@@ -82,5 +83,25 @@ describe('panel page', () => {
     expect(within(table).getByText('Battery ok · Apr 2030')).toBeInTheDocument();
     expect(screen.queryByText(LIFE_SAFETY_CAUTION)).not.toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Mark as programmed' })).toBeDisabled();
+  });
+
+  it('sorts the zone table on the client and pages it 50 at a time', async () => {
+    const zones = Array.from({ length: 60 }, (_, i) =>
+      makeZone({ id: `z${i}`, number: 9 + i, description: `Window ${String(60 - i).padStart(2, '0')}`, deviceType: 'window_contact', zoneType: 'perimeter', serial: `05${String(i).padStart(5, '0')}` }),
+    );
+    const fetchMock = stubApi(makePanel({ zoneCount: 60, nextZoneNumber: null }), zones);
+    renderPanelPage();
+
+    const table = await screen.findByRole('table', { name: 'Zones of this panel' });
+    expect(within(table).getAllByRole('row')).toHaveLength(51);
+    expect(screen.getByText('1–50 of 60')).toBeInTheDocument();
+    await userEvent.click(screen.getByRole('button', { name: 'Next page' }));
+    expect(screen.getByText('51–60 of 60')).toBeInTheDocument();
+
+    await userEvent.click(within(table).getByRole('button', { name: /Description/ }));
+    expect(screen.getByText('1–50 of 60')).toBeInTheDocument();
+    expect(within(within(table).getAllByRole('row')[1]!).getByText('Window 01')).toBeInTheDocument();
+    const zoneCalls = fetchMock.mock.calls.filter(([url]) => url.startsWith('/api/panels/p1/zones'));
+    expect(zoneCalls).toHaveLength(1);
   });
 });

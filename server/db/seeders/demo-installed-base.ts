@@ -152,7 +152,7 @@ export async function seedInstalledBase(
           tenantId,
           siteId: site.id,
           label: 'Main panel',
-          makeModel: rnd.pick(['Wireless hub, 64-zone', 'Hybrid panel, 48-zone', 'Touchscreen hub, 128-zone']),
+          makeModel: rnd.pick(['Wireless hub, series 4', 'Hybrid panel, series 2', 'Touchscreen hub, series 7']),
           zoneCapacity: 64,
           wirelessZoneFrom: 9,
           wirelessZoneTo: 64,

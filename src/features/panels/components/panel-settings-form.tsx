@@ -105,9 +105,26 @@ export function PanelSettingsForm({ panel, canEdit }: { panel: ApiPanel; canEdit
             })}
           </div>
           <div className="grid gap-3 sm:grid-cols-2">
-            {SWITCH_FIELDS.map((f) => (
-              <CheckField key={f.key} label={f.label} hint={e[f.key]?.message ?? f.hint} {...register(f.key)} />
-            ))}
+            {SWITCH_FIELDS.map((f) => {
+              const finding = findingFor(f.key);
+              return (
+                <CheckField
+                  key={f.key}
+                  label={f.label}
+                  hint={
+                    <>
+                      {e[f.key]?.message ?? f.hint}
+                      {finding && (
+                        <span className={finding.severity === 'error' ? 'block font-medium text-clay-600' : 'block font-medium text-ochre-600'}>
+                          {finding.severity === 'error' ? 'Outside CP-01' : 'Check against CP-01'}: see findings
+                        </span>
+                      )}
+                    </>
+                  }
+                  {...register(f.key)}
+                />
+              );
+            })}
           </div>
         </fieldset>
         {canEdit && (

@@ -115,10 +115,13 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
     return cols;
   }, [canEdit, onEdit, onRemove]);
 
+  // After zones are removed the page may no longer exist: show the last one instead.
+  const lastPageIndex = Math.max(0, Math.ceil(zones.length / ZONE_PAGE_SIZE) - 1);
+  const shownPagination = { ...pagination, pageIndex: Math.min(pagination.pageIndex, lastPageIndex) };
   const table = useReactTable({
     data: zones,
     columns,
-    state: { sorting, globalFilter: filter, pagination },
+    state: { sorting, globalFilter: filter, pagination: shownPagination },
     onSortingChange: (updater) => {
       setSorting(updater);
       setPagination((p) => ({ ...p, pageIndex: 0 }));
@@ -137,7 +140,7 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
   const rows = table.getRowModel().rows;
   const total = table.getFilteredRowModel().rows.length;
   const pageCount = Math.max(1, table.getPageCount());
-  const page = Math.min(pagination.pageIndex, pageCount - 1) + 1;
+  const page = Math.min(shownPagination.pageIndex, pageCount - 1) + 1;
   const from = total === 0 ? 0 : (page - 1) * ZONE_PAGE_SIZE + 1;
   const to = Math.min(total, page * ZONE_PAGE_SIZE);
   const current = sorting[0] ?? { id: 'number', desc: false };
