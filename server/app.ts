@@ -15,6 +15,7 @@ import { clientsRouter } from './routes/clients/router';
 import { contactsRouter } from './routes/contacts/router';
 import { documentsRouter } from './routes/documents/router';
 import { firmRouter } from './routes/firm/router';
+import { upkeepSettingsRouter } from './routes/firm/upkeep';
 import { panelsRouter } from './routes/panels/router';
 import { sitesRouter } from './routes/sites/router';
 import { zonesRouter } from './routes/zones/router';
@@ -111,6 +112,7 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', sessionRouter(deps, { passport, csrf, signInLimiter, resetLimiter }));
   app.use('/api', invitationsRouter(deps));
   app.use('/api', staffRouter(deps));
+  app.use('/api', upkeepSettingsRouter(deps));
   app.use('/api', firmRouter(deps));
   app.use('/api', operatorRouter(deps));
   app.use('/api', clientsRouter(deps));

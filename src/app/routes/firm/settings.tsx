@@ -4,6 +4,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { firmQuery } from '@/features/firm/api/firm-queries';
 import { FirmSettingsForm } from '@/features/firm/components/firm-settings-form';
 import { LogoUpload } from '@/features/firm/components/logo-upload';
+import { UpkeepSettingsForm } from '@/features/firm/components/upkeep-settings-form';
 
 export function loader(queryClient: QueryClient) {
   return queryClient.ensureQueryData(firmQuery());
@@ -19,6 +20,7 @@ export default function FirmSettingsPage() {
           <LogoUpload firm={firm} />
         </Card>
         <FirmSettingsForm key={firm.id} firm={firm} />
+        <UpkeepSettingsForm canEdit />
       </div>
     </>
   );

@@ -1,5 +1,7 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { FirmSettingsInput } from '@domain/schemas/firm';
+import type { UpkeepSettings } from '@domain/device-life';
+import type { UpkeepSettingsInput } from '@domain/schemas/upkeep';
 import { api, uploadWithProgress } from '@/lib/api-client';
 import type { ApiFirm } from '@/types/api';
 
@@ -7,6 +9,7 @@ export const firmKeys = {
   all: ['firm'] as const,
   details: () => [...firmKeys.all, 'detail'] as const,
   detail: () => [...firmKeys.details(), 'own'] as const,
+  upkeep: () => [...firmKeys.all, 'upkeep'] as const,
 };
 
 export const firmQuery = () =>
@@ -48,5 +51,28 @@ export function useRemoveLogo() {
   return useMutation({
     mutationFn: () => api.delete('/api/firm/logo'),
     onSuccess: () => changed(),
+  });
+}
+
+export interface UpkeepSettingsResponse {
+  settings: UpkeepSettings;
+  defaults: UpkeepSettings;
+}
+
+export const upkeepSettingsQuery = () =>
+  queryOptions({
+    queryKey: firmKeys.upkeep(),
+    queryFn: ({ signal }) => api.get<{ data: UpkeepSettingsResponse }>('/api/firm/upkeep-settings', signal).then((r) => r.data),
+  });
+
+export function useSaveUpkeepSettings() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: UpkeepSettingsInput) => api.put<{ data: UpkeepSettingsResponse }>('/api/firm/upkeep-settings', input).then((r) => r.data),
+    onSuccess: (data) => {
+      queryClient.setQueryData(firmKeys.upkeep(), data);
+      // zone lists carry computed device life
+      return queryClient.invalidateQueries({ queryKey: ['zones'] });
+    },
   });
 }

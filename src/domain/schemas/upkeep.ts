@@ -1,0 +1,23 @@
+import { z } from 'zod';
+import { DEVICE_TYPES } from '../devices';
+
+const years = (label: string) => z.number({ error: `${label} is a number of years.` }).min(1, 'At least 1 year.').max(15, 'At most 15 years.');
+
+/**
+ * A firm's upkeep settings (device-life model): the end-of-life periods, how early an item
+ * counts as "soon", and per-device-type overrides. Saved whole; empty maps mean "our model".
+ */
+export const upkeepSettingsSchema = z.object({
+  smokeEndOfLifeYears: years('Smoke alarm life').int('Use whole years.'),
+  coEndOfLifeYears: years('CO alarm life').int('Use whole years.'),
+  soonDays: z.number({ error: 'Days ahead is a number.' }).int('Use whole days.').min(7, 'At least 7 days.').max(365, 'At most 365 days.'),
+  batteryYearsOverride: z.partialRecord(
+    z.enum(DEVICE_TYPES),
+    z.number({ error: 'Battery life is a number of years.' }).min(0.5, 'At least half a year.').max(15, 'At most 15 years.'),
+  ),
+  averageCurrentMicroAmps: z.partialRecord(
+    z.enum(DEVICE_TYPES),
+    z.number({ error: 'Average current is a number of microamps.' }).positive('Must be above 0 µA.').max(10_000, 'At most 10,000 µA.'),
+  ),
+});
+export type UpkeepSettingsInput = z.infer<typeof upkeepSettingsSchema>;
