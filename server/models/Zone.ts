@@ -24,6 +24,10 @@ export class Zone extends TenantModel<InferAttributes<Zone>, InferCreationAttrib
   declare batteryType: CreationOptional<string | null>;
   declare batteryChangedOn: CreationOptional<string | null>;
   declare manufacturedOn: CreationOptional<string | null>;
+  /** pin on a floor plan: floor and fractions of the image (0..1) */
+  declare pinFloorId: CreationOptional<string | null>;
+  declare pinX: CreationOptional<number | null>;
+  declare pinY: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -50,6 +54,9 @@ export class Zone extends TenantModel<InferAttributes<Zone>, InferCreationAttrib
         batteryType: { type: DataTypes.STRING(30), allowNull: true },
         batteryChangedOn: { type: DataTypes.DATEONLY, allowNull: true },
         manufacturedOn: { type: DataTypes.DATEONLY, allowNull: true },
+        pinFloorId: { type: DataTypes.UUID, allowNull: true },
+        pinX: { type: DataTypes.DOUBLE, allowNull: true },
+        pinY: { type: DataTypes.DOUBLE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -3,9 +3,12 @@ import { AuditEvent } from './AuditEvent';
 import { Client } from './Client';
 import { Document } from './Document';
 import { EmergencyContact } from './EmergencyContact';
+import { Floor } from './Floor';
 import { Invitation } from './Invitation';
+import { Opening } from './Opening';
 import { Panel } from './Panel';
 import { PasswordReset } from './PasswordReset';
+import { Room } from './Room';
 import { Session } from './Session';
 import { Site } from './Site';
 import { Tenant } from './Tenant';
@@ -14,11 +17,11 @@ import { Zone } from './Zone';
 import { ZoneChange } from './ZoneChange';
 import { guardIncludes } from './base/tenant-guard';
 
-export { AuditEvent, Client, Document, EmergencyContact, Invitation, Panel, PasswordReset, Session, Site, Tenant, User, Zone, ZoneChange };
+export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, Zone, ZoneChange };
 
 /** Binds every model to this database and wires the associations. */
 export function initModels(sequelize: Sequelize): void {
-  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange];
+  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening];
   for (const model of models) model.initModel(sequelize);
 
   Tenant.hasMany(User, { foreignKey: 'tenantId', as: 'users' });
@@ -28,6 +31,9 @@ export function initModels(sequelize: Sequelize): void {
   Site.belongsTo(Client, { foreignKey: 'clientId', as: 'client' });
   Site.hasMany(Panel, { foreignKey: 'siteId', as: 'panels' });
   Panel.hasMany(Zone, { foreignKey: 'panelId', as: 'zones' });
+  Site.hasMany(Floor, { foreignKey: 'siteId', as: 'floors' });
+  Floor.hasMany(Room, { foreignKey: 'floorId', as: 'rooms' });
+  Room.hasMany(Opening, { foreignKey: 'roomId', as: 'openings' });
 
   for (const model of models) guardIncludes(model);
 }

@@ -41,6 +41,7 @@ export const SUBJECTS = [
   'Document',
   'Panel',
   'Zone',
+  'Premises',
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 
@@ -79,14 +80,14 @@ export function defineRulesFor(user: AbilityUser | null): AppRule[] {
       can('manage', 'Invitation', { tenantId });
       can('read', 'AuditEvent', { tenantId });
       can('manage', 'Billing', { tenantId });
-      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone'], { tenantId });
+      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone', 'Premises'], { tenantId });
       break;
     case 'coordinator':
       can('read', 'Tenant', { id: tenantId });
       can('read', 'User', { tenantId });
       // Coordinators invite clients (homeowners), never staff.
       can(['create', 'read', 'update', 'delete'], 'Invitation', { tenantId, role: 'client' });
-      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone'], { tenantId });
+      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone', 'Premises'], { tenantId });
       break;
     case 'technician':
       can('read', 'Tenant', { id: tenantId });
@@ -96,7 +97,7 @@ export function defineRulesFor(user: AbilityUser | null): AppRule[] {
       can('read', ['Client', 'Site', 'Contact', 'Document'], { tenantId });
       can('reveal', 'Site', { tenantId });
       can('create', 'Document', { tenantId });
-      can('manage', ['Panel', 'Zone'], { tenantId });
+      can('manage', ['Panel', 'Zone', 'Premises'], { tenantId });
       break;
     case 'client':
       can('read', 'Tenant', { id: tenantId });

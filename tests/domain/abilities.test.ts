@@ -98,6 +98,8 @@ const CASES = {
   'Panel of other firm': { type: 'Panel', record: () => ({ id: 'p-2', siteId: 'site-3', tenantId: OTHER_FIRM }) },
   'Zone of own firm': { type: 'Zone', record: () => ({ id: 'z-1', panelId: 'p-1', tenantId: OWN_FIRM }) },
   'Zone of other firm': { type: 'Zone', record: () => ({ id: 'z-2', panelId: 'p-2', tenantId: OTHER_FIRM }) },
+  'Premises of own firm': { type: 'Premises', record: () => ({ id: 'f-1', siteId: 'site-1', tenantId: OWN_FIRM }) },
+  'Premises of other firm': { type: 'Premises', record: () => ({ id: 'f-2', siteId: 'site-3', tenantId: OTHER_FIRM }) },
 } satisfies Record<string, { type: SubjectType; record: (u: AbilityUser) => Record<string, unknown> }>;
 
 type CaseName = keyof typeof CASES;
@@ -136,6 +138,7 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'Document of own firm': ALL,
     'Panel of own firm': ALL,
     'Zone of own firm': ALL,
+    'Premises of own firm': ALL,
   },
   coordinator: {
     'Tenant of own firm': ['read'],
@@ -152,6 +155,7 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'Document of own firm': ALL,
     'Panel of own firm': ALL,
     'Zone of own firm': ALL,
+    'Premises of own firm': ALL,
   },
   technician: {
     'Tenant of own firm': ['read'],
@@ -167,6 +171,7 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'Document of own firm': ['read', 'create'],
     'Panel of own firm': ALL,
     'Zone of own firm': ALL,
+    'Premises of own firm': ALL,
   },
   client: {
     'Tenant of own firm': ['read'],
