@@ -6,6 +6,7 @@
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readEnv } from './config/env';
+import { TenantFiles } from './storage/tenant-files';
 import { createSecretBox } from './crypto/secret-box';
 import { buildClient, clientBuildIsStale } from './client-build';
 import { DEMO_PASSWORD, isDatabaseEmpty, seedDemo, type DemoSignIn } from './db/seeders/demo';
@@ -31,7 +32,7 @@ async function main(): Promise<void> {
 
   const sequelize = await openDatabase(env);
   let demo: DemoSignIn[] = [];
-  if (!env.isProduction && (await isDatabaseEmpty())) demo = await seedDemo(sequelize, createSecretBox(env.dataEncryptionKey));
+  if (!env.isProduction && (await isDatabaseEmpty())) demo = await seedDemo(sequelize, { secrets: createSecretBox(env.dataEncryptionKey), files: new TenantFiles(path.resolve(env.tenantsDir)) });
 
   const running = await startServer(env, { sequelize, serveClient: path.join(root, 'dist') });
 

@@ -1,4 +1,6 @@
 /** `npm run db:migrate | db:rollback | db:seed` */
+import path from 'node:path';
+import { TenantFiles } from '../storage/tenant-files';
 import { readEnv } from '../config/env';
 import { createSecretBox } from '../crypto/secret-box';
 import { createMigrator } from './migrator';
@@ -23,7 +25,7 @@ async function main(): Promise<void> {
       if (env.isProduction) throw new Error('The demo scenario is never seeded in production; use npm run operator:create.');
       await migrator.up();
       if (!(await isDatabaseEmpty())) throw new Error('The database is not empty; the demo scenario seeds an empty database only.');
-      const signIns = await seedDemo(sequelize, createSecretBox(env.dataEncryptionKey));
+      const signIns = await seedDemo(sequelize, { secrets: createSecretBox(env.dataEncryptionKey), files: new TenantFiles(path.resolve(env.tenantsDir)) });
       console.log(`Seeded ${signIns.length} demo sign-ins.`);
     } else {
       throw new Error('Usage: tsx server/db/cli.ts migrate|rollback|seed');

@@ -14,6 +14,7 @@ import type { TestProject } from 'vitest/node';
 import { readEnv } from '../../server/config/env';
 import { createSecretBox } from '../../server/crypto/secret-box';
 import { seedDemo } from '../../server/db/seeders/demo';
+import { TenantFiles } from '../../server/storage/tenant-files';
 import { startMailCatcher } from '../../server/fakes/mail-catcher';
 import { openDatabase, startServer } from '../../server/index';
 
@@ -132,7 +133,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     // close() does, in the order that lets open requests finish first.
     let stopApp = () => sequelize.close();
     cleanups.push(() => stopApp());
-    await seedDemo(sequelize, createSecretBox(env.dataEncryptionKey));
+    await seedDemo(sequelize, { secrets: createSecretBox(env.dataEncryptionKey), files: new TenantFiles(path.resolve(env.tenantsDir)) });
 
     const running = await startServer(env, { sequelize, serveClient: clientDir, host: '127.0.0.1' });
     stopApp = () => running.close();

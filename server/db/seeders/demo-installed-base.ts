@@ -15,6 +15,8 @@ import { EmergencyContact } from '../../models/EmergencyContact';
 import { Panel } from '../../models/Panel';
 import { Site } from '../../models/Site';
 import { Zone } from '../../models/Zone';
+import type { TenantFiles } from '../../storage/tenant-files';
+import { seedPremises } from './demo-premises';
 
 const FIRST = ['Maren', 'Joel', 'Ines', 'Tobias', 'Odile', 'Ravi', 'Hedda', 'Callum', 'Petra', 'Amos', 'Liesl', 'Dario', 'Wren', 'Soren', 'Yara', 'Bram'];
 const LAST = ['Osk', 'Fairweather', 'Lindqvist', 'Marrow', 'Achterberg', 'Quill', 'Trevane', 'Holloway', 'Sandor', 'Blackwood', 'Renner', 'Pike', 'Ashdown', 'Kell'];
@@ -74,7 +76,7 @@ export interface SeededInstalledBase {
 
 export async function seedInstalledBase(
   tenantId: string,
-  options: { seed: number; today: Date; timeZone: string; region: string; secrets: SecretBox; transaction: Transaction; cp01FindingOnFirstPanel: boolean },
+  options: { seed: number; today: Date; timeZone: string; region: string; secrets: SecretBox; files: TenantFiles; transaction: Transaction; cp01FindingOnFirstPanel: boolean },
 ): Promise<SeededInstalledBase> {
   const rnd = randomFrom(options.seed);
   const { transaction, today } = options;
@@ -166,6 +168,7 @@ export async function seedInstalledBase(
       );
       const plan = HOME_ZONES.filter((_, i) => i < 9 || rnd.next() > 0.25);
       let number = 9;
+      const zonesByDescription = new Map<string, Zone>();
       for (const z of plan) {
         const defaults = zoneDefaultsFor(z.deviceType);
         const lifeSafety = z.deviceType === 'smoke' || z.deviceType === 'co';
@@ -173,7 +176,7 @@ export async function seedInstalledBase(
         const manufacturedDaysAgo = lifeSafety ? rnd.int(700, 3900) : null;
         const batteryChangedDaysAgo = !lifeSafety && rnd.next() > 0.5 ? rnd.int(200, 2000) : null;
         const serialDigits = String(rnd.int(1, 9_999_999)).padStart(7, '0');
-        await Zone.create(
+        const zone = await Zone.create(
           {
             tenantId,
             siteId: site.id,
@@ -192,8 +195,10 @@ export async function seedInstalledBase(
           },
           { transaction },
         );
+        zonesByDescription.set(z.description, zone);
         zoneCount++;
       }
+      await seedPremises(site, zonesByDescription, { transaction, files: options.files, withPlan: siteCount === 1 });
     }
   }
   return { clients: clientCount, sites: siteCount, zones: zoneCount };

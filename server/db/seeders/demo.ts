@@ -7,6 +7,7 @@ import type { Sequelize } from 'sequelize';
 import { trialEndsAt } from '@domain/tenant-states';
 import { hashPassword } from '../../auth/passwords';
 import type { SecretBox } from '../../crypto/secret-box';
+import type { TenantFiles } from '../../storage/tenant-files';
 import { seedInstalledBase } from './demo-installed-base';
 import { AuditEvent } from '../../models/AuditEvent';
 import { Tenant } from '../../models/Tenant';
@@ -66,7 +67,7 @@ export async function isDatabaseEmpty(): Promise<boolean> {
   return (await User.count({ crossTenant: true })) === 0;
 }
 
-export async function seedDemo(sequelize: Sequelize, secrets: SecretBox, now = new Date()): Promise<DemoSignIn[]> {
+export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new Date() }: { secrets: SecretBox; files: TenantFiles; now?: Date }): Promise<DemoSignIn[]> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const signIns: DemoSignIn[] = [];
   await sequelize.transaction(async (transaction) => {
@@ -106,6 +107,7 @@ export async function seedDemo(sequelize: Sequelize, secrets: SecretBox, now = n
         timeZone: firm.timeZone,
         region: firm.region,
         secrets,
+        files,
         transaction,
         cp01FindingOnFirstPanel: true,
       });
