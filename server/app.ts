@@ -17,6 +17,7 @@ import { documentsRouter } from './routes/documents/router';
 import { firmRouter } from './routes/firm/router';
 import { upkeepSettingsRouter } from './routes/firm/upkeep';
 import { panelsRouter } from './routes/panels/router';
+import { premisesRouter } from './routes/premises/router';
 import { sitesRouter } from './routes/sites/router';
 import { zonesRouter } from './routes/zones/router';
 import { invitationsRouter } from './routes/invitations/router';
@@ -121,6 +122,7 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', documentsRouter(deps));
   app.use('/api', panelsRouter(deps));
   app.use('/api', zonesRouter(deps));
+  app.use('/api', premisesRouter(deps));
   app.use('/api', apiNotFound);
   app.use('/api', errorHandler(deps.logger));
 

@@ -1,11 +1,18 @@
 import type { Zone } from '../models/Zone';
 import { type ZoneViewContext, zoneValuesOf, zoneViewOf } from '../services/zones';
 
+/** A zone's pin on a floor plan (fractions of the image's width and height), or null. */
+export function pinOf(zone: Pick<Zone, 'pinFloorId' | 'pinX' | 'pinY'>): { floorId: string; x: number; y: number } | null {
+  if (!zone.pinFloorId || zone.pinX === null || zone.pinX === undefined || zone.pinY === null || zone.pinY === undefined) return null;
+  return { floorId: zone.pinFloorId, x: zone.pinX, y: zone.pinY };
+}
+
 /**
  * A zone as staff see it (api-resources.md, "Zone"), with `life` (device life on the site's
  * today, the firm's upkeep model), `elsewhere` (the same serial in service on the firm's
- * other panels) and `warnings` (notes that did not block saving, e.g. a number outside the
- * wireless range). Portal presenters for clients must leave out `serial` and `elsewhere`.
+ * other panels), `warnings` (notes that did not block saving, e.g. a number outside the
+ * wireless range) and `pin` (its place on a floor plan, or null). Portal presenters for
+ * clients must leave out `serial` and `elsewhere`.
  */
 export function presentZone(zone: Zone, view: ZoneViewContext) {
   const values = zoneValuesOf(zone);
@@ -30,6 +37,7 @@ export function presentZone(zone: Zone, view: ZoneViewContext) {
     batteryType: values.batteryType,
     batteryChangedOn: values.batteryChangedOn,
     manufacturedOn: values.manufacturedOn,
+    pin: pinOf(zone),
     life: extra.life,
     elsewhere: extra.elsewhere.map((place) => ({
       zoneId: place.zoneId,

@@ -4,6 +4,7 @@ import type { SecretBox } from '../crypto/secret-box';
 import { errors, HttpError } from '../errors';
 import { Client } from '../models/Client';
 import { Document } from '../models/Document';
+import { Floor } from '../models/Floor';
 import { Site } from '../models/Site';
 import { recordAudit } from './audit-recorder';
 
@@ -129,9 +130,11 @@ export async function updateSite(ctx: Ctx, site: Site, patch: SitePatch, secrets
  */
 export async function deleteSite(ctx: Ctx, site: Site): Promise<string[]> {
   const documents = await Document.findAll({ where: scoped(ctx, { siteId: site.id }), attributes: ['fileId'], transaction: ctx.transaction });
+  const plans = await Floor.findAll({ where: scoped(ctx, { siteId: site.id }), attributes: ['planImageId'], transaction: ctx.transaction });
   await site.destroy({ transaction: ctx.transaction });
   await recordAudit(ctx, { action: 'site.deleted', subjectType: 'Site', subjectId: site.id, details: { name: site.name, clientId: site.clientId, documents: documents.length } });
-  return documents.map((d) => d.fileId);
+  // files to remove once the transaction commits: documents and floor-plan images
+  return [...documents.map((d) => d.fileId), ...plans.map((f) => f.planImageId).filter((id): id is string => !!id)];
 }
 
 /** The site's passcode in clear, for a role allowed to reveal it; each reveal is an audit event. */

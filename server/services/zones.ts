@@ -34,6 +34,7 @@ import type { Tenant } from '../models/Tenant';
 import { Zone } from '../models/Zone';
 import { ZoneChange } from '../models/ZoneChange';
 import { recordAudit } from './audit-recorder';
+import { resolvePremisesLinks } from './premises-links';
 
 export type ZonePatch = z.output<typeof zonePatchSchema>;
 export type ZoneCreateValues = z.output<typeof zoneCreateSchema>;
@@ -290,10 +291,14 @@ export function completeZoneValues(input: ZoneCreateValues, number: number): Zon
 
 /**
  * Adds a zone to a panel (call inside a transaction): number and behaviour defaults filled,
+ * room and opening checked against the panel's site (400 naming `roomId` / `openingId`),
  * capacity and clashes checked against the panel's zones as saved, logged and audited.
  */
-export async function createZone(ctx: Ctx, panelId: string, input: ZoneCreateValues): Promise<{ zone: Zone; panel: Panel }> {
+export async function createZone(ctx: Ctx, panelId: string, given: ZoneCreateValues): Promise<{ zone: Zone; panel: Panel }> {
   const panel = await reloadPanel(ctx, panelId);
+  // a room or opening must be of the panel's own site; an opening alone puts the zone in its room
+  const links = await resolvePremisesLinks(ctx, panel.siteId, { roomId: given.roomId, openingId: given.openingId });
+  const input: ZoneCreateValues = { ...given, roomId: links.roomId ?? null, openingId: links.openingId ?? null };
   const zones = (await panelZones(ctx, panel.id)).map(zoneLikeOf);
   const range = panelRangeOf(panel);
   const number = input.number ?? nextFreeZoneNumber(range, zones);
@@ -322,14 +327,17 @@ export async function createZone(ctx: Ctx, panelId: string, input: ZoneCreateVal
 /**
  * Changes a zone (call inside a transaction). Only the fields sent change. A zone that is (or
  * becomes) removed holds no number or serial, so it is not checked for clashes; every other
- * zone is checked against the panel's zones as saved. Nothing is written when nothing changed.
+ * zone is checked against the panel's zones as saved. A room or opening sent must be of the
+ * zone's site. Nothing is written when nothing changed.
  */
 export async function updateZone(ctx: Ctx, zoneId: string, patch: ZonePatch): Promise<{ zone: Zone; panel: Panel; changes: ChangeSet }> {
   const zone = await Zone.findOne({ where: scoped(ctx, { id: zoneId }), transaction: ctx.transaction ?? null });
   if (!zone) throw errors.notFound('zone');
   const panel = await reloadPanel(ctx, zone.panelId);
   const before = zoneValuesOf(zone);
-  const after: ZoneValues = { ...before, ...definedOnly(patch) };
+  // a room or opening must be of the zone's own site; an opening alone puts the zone in its room
+  const links = await resolvePremisesLinks(ctx, panel.siteId, { roomId: patch.roomId, openingId: patch.openingId });
+  const after: ZoneValues = { ...before, ...definedOnly({ ...patch, ...definedOnly(links) }) };
   if (after.status !== 'removed') {
     const zones = (await panelZones(ctx, panel.id)).map(zoneLikeOf);
     const refusal = refusalFor(zoneProblems({ id: zone.id, number: after.number, serial: after.serial, input: after.input }, panelRangeOf(panel), zones));

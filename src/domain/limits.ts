@@ -13,6 +13,7 @@ export const LIMITS = {
   pageSizeMax: 100,
   pageSizeDefault: 25,
   logoMaxBytes: 1024 * 1024,
+  floorPlanMaxBytes: 5 * 1024 * 1024,
   logoTypes: ['image/png', 'image/jpeg', 'image/webp'] as readonly string[],
   invitationDays: 7,
   passwordResetMinutes: 60,

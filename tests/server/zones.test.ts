@@ -78,6 +78,7 @@ describe('POST /api/panels/:panelId/zones', () => {
       batteryType: null,
       batteryChangedOn: null,
       manufacturedOn: null,
+      pin: null,
       life: { batteryDueOn: null, endOfLifeOn: null, state: 'ok' },
       elsewhere: [],
       warnings: [],
