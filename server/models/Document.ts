@@ -16,6 +16,9 @@ export class Document extends TenantModel<InferAttributes<Document>, InferCreati
   declare originalName: CreationOptional<string>;
   declare sharedWithClient: CreationOptional<boolean>;
   declare uploadedById: string | null;
+  /** set for a job's photos and files */
+  declare jobId: CreationOptional<string | null>;
+  declare thumbnailFileId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -33,6 +36,8 @@ export class Document extends TenantModel<InferAttributes<Document>, InferCreati
         originalName: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '' },
         sharedWithClient: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         uploadedById: { type: DataTypes.UUID, allowNull: true },
+        jobId: { type: DataTypes.UUID, allowNull: true },
+        thumbnailFileId: { type: DataTypes.STRING(80), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

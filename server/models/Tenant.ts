@@ -24,6 +24,8 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
   declare logoContentType: CreationOptional<string | null>;
   /** firm overrides of the upkeep model (battery life, smoke/CO end of life); null = defaults */
   declare upkeepSettings: CreationOptional<Record<string, unknown> | null>;
+  /** the firm's checklist per job kind; null = defaults */
+  declare checklistTemplates: CreationOptional<Record<string, string[]> | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -47,6 +49,7 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
         logoFileId: { type: DataTypes.STRING(80), allowNull: true },
         logoContentType: { type: DataTypes.STRING(40), allowNull: true },
         upkeepSettings: { type: DataTypes.JSON, allowNull: true },
+        checklistTemplates: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -5,6 +5,7 @@ import { Document } from './Document';
 import { EmergencyContact } from './EmergencyContact';
 import { Floor } from './Floor';
 import { Invitation } from './Invitation';
+import { Job } from './Job';
 import { Opening } from './Opening';
 import { Panel } from './Panel';
 import { PasswordReset } from './PasswordReset';
@@ -13,15 +14,16 @@ import { Session } from './Session';
 import { Site } from './Site';
 import { Tenant } from './Tenant';
 import { User } from './User';
+import { WalkTest } from './WalkTest';
 import { Zone } from './Zone';
 import { ZoneChange } from './ZoneChange';
 import { guardIncludes } from './base/tenant-guard';
 
-export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, Zone, ZoneChange };
+export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, WalkTest, Zone, ZoneChange };
 
 /** Binds every model to this database and wires the associations. */
 export function initModels(sequelize: Sequelize): void {
-  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening];
+  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest];
   for (const model of models) model.initModel(sequelize);
 
   Tenant.hasMany(User, { foreignKey: 'tenantId', as: 'users' });

@@ -42,6 +42,7 @@ export const SUBJECTS = [
   'Panel',
   'Zone',
   'Premises',
+  'Job',
 ] as const;
 export type SubjectType = (typeof SUBJECTS)[number];
 
@@ -80,14 +81,14 @@ export function defineRulesFor(user: AbilityUser | null): AppRule[] {
       can('manage', 'Invitation', { tenantId });
       can('read', 'AuditEvent', { tenantId });
       can('manage', 'Billing', { tenantId });
-      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone', 'Premises'], { tenantId });
+      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone', 'Premises', 'Job'], { tenantId });
       break;
     case 'coordinator':
       can('read', 'Tenant', { id: tenantId });
       can('read', 'User', { tenantId });
       // Coordinators invite clients (homeowners), never staff.
       can(['create', 'read', 'update', 'delete'], 'Invitation', { tenantId, role: 'client' });
-      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone', 'Premises'], { tenantId });
+      can('manage', ['Client', 'Site', 'Contact', 'Document', 'Panel', 'Zone', 'Premises', 'Job'], { tenantId });
       break;
     case 'technician':
       can('read', 'Tenant', { id: tenantId });
@@ -98,6 +99,10 @@ export function defineRulesFor(user: AbilityUser | null): AppRule[] {
       can('reveal', 'Site', { tenantId });
       can('create', 'Document', { tenantId });
       can('manage', ['Panel', 'Zone', 'Premises'], { tenantId });
+      // Every job of the firm is readable; only their own jobs are changeable (walk tests,
+      // checklist, photos, start and completion).
+      can('read', 'Job', { tenantId });
+      can('update', 'Job', { tenantId, technicianId: user.id });
       break;
     case 'client':
       can('read', 'Tenant', { id: tenantId });

@@ -100,6 +100,9 @@ const CASES = {
   'Zone of other firm': { type: 'Zone', record: () => ({ id: 'z-2', panelId: 'p-2', tenantId: OTHER_FIRM }) },
   'Premises of own firm': { type: 'Premises', record: () => ({ id: 'f-1', siteId: 'site-1', tenantId: OWN_FIRM }) },
   'Premises of other firm': { type: 'Premises', record: () => ({ id: 'f-2', siteId: 'site-3', tenantId: OTHER_FIRM }) },
+  'Job assigned to me': { type: 'Job', record: (u: AbilityUser) => ({ id: 'j-1', siteId: 'site-1', tenantId: OWN_FIRM, technicianId: u.id }) },
+  'Job of a colleague': { type: 'Job', record: () => ({ id: 'j-2', siteId: 'site-1', tenantId: OWN_FIRM, technicianId: COLLEAGUE }) },
+  'Job of other firm': { type: 'Job', record: (u: AbilityUser) => ({ id: 'j-3', siteId: 'site-3', tenantId: OTHER_FIRM, technicianId: u.id }) },
 } satisfies Record<string, { type: SubjectType; record: (u: AbilityUser) => Record<string, unknown> }>;
 
 type CaseName = keyof typeof CASES;
@@ -139,6 +142,8 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'Panel of own firm': ALL,
     'Zone of own firm': ALL,
     'Premises of own firm': ALL,
+    'Job assigned to me': ALL,
+    'Job of a colleague': ALL,
   },
   coordinator: {
     'Tenant of own firm': ['read'],
@@ -156,6 +161,8 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'Panel of own firm': ALL,
     'Zone of own firm': ALL,
     'Premises of own firm': ALL,
+    'Job assigned to me': ALL,
+    'Job of a colleague': ALL,
   },
   technician: {
     'Tenant of own firm': ['read'],
@@ -172,6 +179,9 @@ const MATRIX: Record<Role, Partial<Record<CaseName, readonly Action[]>>> = {
     'Panel of own firm': ALL,
     'Zone of own firm': ALL,
     'Premises of own firm': ALL,
+    // Reads every job of the firm; changes only their own.
+    'Job assigned to me': ['read', 'update'],
+    'Job of a colleague': ['read'],
   },
   client: {
     'Tenant of own firm': ['read'],

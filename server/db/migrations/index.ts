@@ -6,6 +6,7 @@ import type { QueryInterface } from 'sequelize';
 import * as m20261201000000 from './20261201000000-create-foundation';
 import * as m20261201010000 from './20261201010000-create-installed-base';
 import * as m20261201020000 from './20261201020000-create-premises';
+import * as m20261201030000 from './20261201030000-create-jobs';
 
 export interface Migration {
   name: string;
@@ -17,4 +18,5 @@ export const MIGRATIONS: Migration[] = [
   { name: '20261201000000-create-foundation', ...m20261201000000 },
   { name: '20261201010000-create-installed-base', ...m20261201010000 },
   { name: '20261201020000-create-premises', ...m20261201020000 },
+  { name: '20261201030000-create-jobs', ...m20261201030000 },
 ];
