@@ -100,6 +100,8 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'clients/:clientId/sites/new', ...page(() => import('./routes/firm/site-new')) },
             { path: 'sites/:siteId', ...page(() => import('./routes/firm/site')) },
             { path: 'sites/:siteId/edit', ...page(() => import('./routes/firm/site-edit')) },
+            { path: 'sites/:siteId/premises', ...page(() => import('./routes/firm/premises')) },
+            { path: 'sites/:siteId/coverage', ...page(() => import('./routes/firm/coverage')) },
             { path: 'settings', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/settings')) },
             { path: 'panels/:panelId', ...page(() => import('./routes/firm/panel')) },
           ],

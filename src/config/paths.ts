@@ -18,6 +18,8 @@ export const paths = {
     newSite: (clientId = ':clientId') => `/app/clients/${clientId}/sites/new`,
     site: (siteId = ':siteId') => `/app/sites/${siteId}`,
     editSite: (siteId = ':siteId') => `/app/sites/${siteId}/edit`,
+    premises: (siteId = ':siteId') => `/app/sites/${siteId}/premises`,
+    coverage: (siteId = ':siteId') => `/app/sites/${siteId}/coverage`,
   },
   operator: {
     root: '/operator',

@@ -263,3 +263,124 @@ export interface ApiZoneImportResult {
   updates: number;
   unchanged?: number;
 }
+
+// ---------------------------------------------------------------------------------------------
+// Premises and coverage
+// ---------------------------------------------------------------------------------------------
+import type { FindingSeverity } from '@domain/coverage';
+import type { OpeningKind, RoomKind } from '@domain/premises';
+
+export interface ApiOpening {
+  id: string;
+  roomId: string;
+  kind: OpeningKind;
+  label: string;
+  groundReachable: boolean;
+}
+
+export interface ApiRoom {
+  id: string;
+  floorId: string;
+  name: string;
+  kind: RoomKind;
+  fuelBurningAppliance: boolean;
+  attachedGarage: boolean;
+  openings: ApiOpening[];
+}
+
+export interface ApiFloor {
+  id: string;
+  siteId: string;
+  name: string;
+  level: number;
+  belowGrade: boolean;
+  planImageId: string | null;
+  /** Where the plan image is served (GET /api/floors/:floorId/plan), or null without one. */
+  planImageUrl: string | null;
+  rooms: ApiRoom[];
+}
+
+/** What the premises answer tells of each zone of the site: enough to link it and pin it. */
+export interface ApiPremisesZone {
+  id: string;
+  panelId: string;
+  panelLabel: string;
+  number: number;
+  description: string;
+  deviceType: DeviceType;
+  status: ZoneStatus;
+  roomId: string | null;
+  openingId: string | null;
+  pin: ApiZonePin | null;
+}
+
+/**
+ * GET /api/sites/:siteId/premises: the site's floors, each with its rooms and their openings,
+ * and (when the server sends them) the site's zones with their links and pins.
+ */
+export interface ApiPremises {
+  floors: ApiFloor[];
+  zones?: ApiPremisesZone[];
+}
+
+/** A zone's place on a floor plan: x and y as fractions (0..1) of the image's width and height. */
+export interface ApiZonePin {
+  floorId: string;
+  x: number;
+  y: number;
+}
+
+/** Zones carry their pin (declaration merging: the zone's other fields are above). */
+export interface ApiZone {
+  pin?: ApiZonePin | null;
+}
+
+export interface ApiCoverageFinding {
+  code: string;
+  severity: FindingSeverity;
+  /** the rule in words */
+  rule: string;
+  /** where the rule comes from */
+  source: string;
+  message: string;
+  floorId: string | null;
+  roomId: string | null;
+  /** smoke/CO findings; shown with the life-safety caution */
+  lifeSafety?: boolean;
+}
+
+export interface ApiCoverageOpening {
+  id: string;
+  kind: OpeningKind;
+  label: string;
+  groundReachable?: boolean;
+  protected: boolean;
+  zoneDescription: string | null;
+}
+
+export interface ApiCoverageRoom {
+  id: string;
+  name: string;
+  kind?: RoomKind;
+  openings: ApiCoverageOpening[];
+  devices?: { zoneId: string; description: string; deviceType: DeviceType }[];
+}
+
+export interface ApiCoverageFloor {
+  id: string;
+  name: string;
+  level?: number;
+  belowGrade?: boolean;
+  rooms: ApiCoverageRoom[];
+}
+
+/** GET /api/sites/:siteId/coverage */
+export interface ApiCoverage {
+  openings: { total: number; protected: number; unprotectedGroundReachable: number };
+  /** "14 of 17 openings protected; 2 windows reachable from the ground have no sensor" */
+  summary: string;
+  findings: ApiCoverageFinding[];
+  /** the life-safety caution, present when a life-safety finding is reported */
+  caution?: string | null;
+  floors: ApiCoverageFloor[];
+}

@@ -17,6 +17,10 @@ import { Zone } from '@server/models/Zone';
 import { CP01_DEFAULTS, type PanelSettings } from '@domain/cp01';
 import { zoneDefaultsFor } from '@domain/zones';
 import type { DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
+import type { OpeningKind, RoomKind } from '@domain/premises';
+import { Floor } from '@server/models/Floor';
+import { Opening } from '@server/models/Opening';
+import { Room } from '@server/models/Room';
 
 export const TEST_PASSWORD = 'correct horse battery';
 let passwordHash: Promise<string> | undefined;
@@ -199,5 +203,53 @@ export async function buildZone(
     batteryType: overrides.batteryType ?? null,
     batteryChangedOn: overrides.batteryChangedOn ?? null,
     manufacturedOn: overrides.manufacturedOn ?? null,
+  });
+}
+
+// ---- Premises: floors, rooms, openings ----
+
+/** A floor of this site: the ground floor unless given. */
+export async function buildFloor(site: Site, overrides: Partial<{ name: string; level: number; belowGrade: boolean; planImageId: string | null; planImageContentType: string | null }> = {}): Promise<Floor> {
+  return Floor.create({
+    tenantId: site.tenantId,
+    siteId: site.id,
+    name: overrides.name ?? 'Ground floor',
+    level: overrides.level ?? 0,
+    belowGrade: overrides.belowGrade ?? false,
+    planImageId: overrides.planImageId ?? null,
+    planImageContentType: overrides.planImageContentType ?? null,
+  });
+}
+
+/** A room on this floor: a living room unless given. */
+export async function buildRoom(
+  floor: Floor,
+  overrides: Partial<{ name: string; kind: RoomKind; fuelBurningAppliance: boolean; attachedGarage: boolean; position: number }> = {},
+): Promise<Room> {
+  return Room.create({
+    tenantId: floor.tenantId,
+    siteId: floor.siteId,
+    floorId: floor.id,
+    name: overrides.name ?? 'Living room',
+    kind: overrides.kind ?? 'living',
+    fuelBurningAppliance: overrides.fuelBurningAppliance ?? false,
+    attachedGarage: overrides.attachedGarage ?? false,
+    position: overrides.position ?? 0,
+  });
+}
+
+/** An opening of this room: a window reachable from the ground unless given. */
+export async function buildOpening(
+  room: Room,
+  overrides: Partial<{ kind: OpeningKind; label: string; groundReachable: boolean; position: number }> = {},
+): Promise<Opening> {
+  return Opening.create({
+    tenantId: room.tenantId,
+    siteId: room.siteId,
+    roomId: room.id,
+    kind: overrides.kind ?? 'window',
+    label: overrides.label ?? 'Front window',
+    groundReachable: overrides.groundReachable ?? true,
+    position: overrides.position ?? 0,
   });
 }

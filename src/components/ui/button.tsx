@@ -1,5 +1,6 @@
 import { forwardRef, type ButtonHTMLAttributes } from 'react';
 import { Link, type LinkProps } from 'react-router-dom';
+import { twMerge } from 'tailwind-merge';
 import { cn } from '@/lib/cn';
 
 type Variant = 'primary' | 'secondary' | 'ghost' | 'danger';
@@ -20,7 +21,8 @@ const sizes: Record<Size, string> = {
 };
 
 export function buttonClass(variant: Variant = 'primary', size: Size = 'md', extra?: string): string {
-  return cn(base, variants[variant], sizes[size], extra);
+  // later classes win (a caller's `px-0` over the size's `px-3`)
+  return twMerge(cn(base, variants[variant], sizes[size], extra));
 }
 
 export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {

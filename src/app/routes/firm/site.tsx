@@ -9,6 +9,7 @@ import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { useAppAbility } from '@/lib/ability';
 import { formatDate } from '@/lib/format';
+import { SiteCoverageCard } from '@/features/coverage/components/site-coverage-card';
 import { SitePanels } from '@/features/panels/components/site-panels';
 import { siteQuery } from '@/features/sites/api/sites-queries';
 import { EmergencyContacts } from '@/features/sites/components/emergency-contacts';
@@ -57,6 +58,7 @@ export default function SitePage() {
       />
       <div className="grid gap-6 lg:grid-cols-3">
         <div className="space-y-6 lg:col-span-2">
+          <SiteCoverageCard siteId={site.id} />
           <SitePanels siteId={site.id} />
           <SiteDocuments siteId={site.id} timeZone={site.timeZone} canUpload={ability.can('create', 'Document')} canEdit={ability.can('update', 'Document')} />
         </div>

@@ -3,7 +3,7 @@ import { CalendarClock, ClipboardCheck, Cpu, Home, ShieldCheck, Users } from 'lu
 import { paths } from '@/config/paths';
 import { buttonClass } from '@/components/ui/button';
 import { PlanCards } from '@/features/plans/components/plan-cards';
-import { DoorSymbol, WindowSymbol } from '@/features/plans/components/opening-symbols';
+import { OpeningSymbol } from '@/components/coverage/opening-symbol';
 
 const FOR_FIRM = [
   { icon: Cpu, title: 'Every panel and zone', text: 'Zone numbers, serials, inputs, zone types and switches — with the next free number and clashes caught before you program.' },
@@ -38,19 +38,19 @@ export default function LandingPage() {
           </div>
           <ul className="mt-4 space-y-3">
             <li className="flex items-center gap-3">
-              <DoorSymbol state="protected" />
+              <OpeningSymbol kind="door" state="protected" className="size-10" />
               <span className="text-sm">
                 <span className="font-medium text-sage-600">Protected</span> — Front door
               </span>
             </li>
             <li className="flex items-center gap-3">
-              <WindowSymbol state="protected" />
+              <OpeningSymbol kind="window" state="protected" className="size-10" />
               <span className="text-sm">
                 <span className="font-medium text-sage-600">Protected</span> — Bay window left
               </span>
             </li>
             <li className="flex items-center gap-3">
-              <WindowSymbol state="none" />
+              <OpeningSymbol kind="window" state="none" className="size-10" />
               <span className="text-sm">
                 <span className="font-medium text-clay-600">No sensor</span> — Bay window right, reachable from the garden
               </span>

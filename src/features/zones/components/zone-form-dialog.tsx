@@ -1,7 +1,9 @@
 import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
 import { useForm, type DefaultValues } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import { Link } from 'react-router-dom';
+import { z } from 'zod';
 import { RotateCcw } from 'lucide-react';
 import {
   BATTERY_TYPES,
@@ -11,31 +13,41 @@ import {
   ZONE_STATUSES,
   ZONE_TYPE_LABELS,
   ZONE_TYPES,
+  OPENING_DEVICE_TYPES,
   type DeviceType,
 } from '@domain/devices';
 import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
+import { uuid } from '@domain/schemas/common';
 import { zoneSchema } from '@domain/schemas/zone';
 import { zoneDefaultsFor, zoneWarnings, type ZoneDefaults } from '@domain/zones';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
 import { FormError, FormField } from '@/components/ui/form-field';
 import { Input, Select } from '@/components/ui/input';
+import { Skeleton } from '@/components/ui/skeleton';
 import { useToast } from '@/components/ui/toast';
+import { paths } from '@/config/paths';
 import { applyServerErrors } from '@/lib/form-errors';
-import type { ApiPanel, ApiZone } from '@/types/api';
+import type { ApiPanel, ApiPremises, ApiZone } from '@/types/api';
+import { premisesQuery, usePremisesChanged } from '@/features/premises/api/premises-queries';
 import { CheckField } from '@/features/panels/components/check-field';
 import { useCreateZone, useUpdateZone } from '../api/zone-queries';
 import { elsewhereNotes } from './zone-bits';
 import { isLifeSafetyDevice } from './zone-life-badge';
 
-/** The zone form edits every field but the room/opening link (that comes with the premises). */
-const zoneFormSchema = zoneSchema.omit({ roomId: true, openingId: true });
+/** The room and opening selects: an empty choice is no link. */
+const premisesLink = z.preprocess((v) => (v === '' || v === undefined ? null : v), uuid.nullable());
+
+/** The zone form edits every field, the room/opening link chosen from the site's premises. */
+const zoneFormSchema = zoneSchema.extend({ roomId: premisesLink, openingId: premisesLink });
 type ZoneFormInput = z.input<typeof zoneFormSchema>;
 type ZoneFormValues = z.output<typeof zoneFormSchema>;
 
 const FIELDS = [
   'number',
   'description',
+  'roomId',
+  'openingId',
   'deviceType',
   'zoneType',
   'serial',
@@ -72,6 +84,8 @@ function initialValues(panel: ApiPanel, zone: ApiZone | undefined): DefaultValue
       chime: zone.chime,
       supervised: zone.supervised,
       status: zone.status,
+      roomId: zone.roomId ?? '',
+      openingId: zone.openingId ?? '',
       installedOn: zone.installedOn ?? '',
       batteryType: zone.batteryType ?? '',
       batteryChangedOn: zone.batteryChangedOn ?? '',
@@ -86,6 +100,8 @@ function initialValues(panel: ApiPanel, zone: ApiZone | undefined): DefaultValue
     input: 1,
     ...zoneDefaultsFor(DEFAULT_DEVICE),
     status: 'active',
+    roomId: '',
+    openingId: '',
     installedOn: '',
     batteryType: '',
     batteryChangedOn: '',
@@ -118,6 +134,8 @@ export function ZoneFormDialog({ open, onClose, panel, zone }: ZoneFormDialogPro
 function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | undefined; onDone: () => void }) {
   const create = useCreateZone(panel.id);
   const update = useUpdateZone(panel.id);
+  const premises = useQuery(premisesQuery(panel.siteId));
+  const premisesChanged = usePremisesChanged(panel.siteId);
   const toast = useToast();
   const [formError, setFormError] = useState<string | null>(null);
   const [byHand, setByHand] = useState(() => (zone ? !followsDefaults(zone) : false));
@@ -130,12 +148,23 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
   const number = watch('number');
   const serial = watch('serial');
   const input = watch('input');
+  const watchOpening = watch('openingId');
 
   const applyDefaults = (type: DeviceType) => {
     const defaults = zoneDefaultsFor(type);
     for (const key of BEHAVIOUR_KEYS) setValue(key, defaults[key], { shouldDirty: true, shouldValidate: formState.isSubmitted });
   };
   const markByHand = () => setByHand(true);
+
+  const roomOfOpening = (openingId: string) => premises.data?.floors.flatMap((f) => f.rooms).find((r) => r.openings.some((o) => o.id === openingId));
+  const onOpeningChange = (ev: React.ChangeEvent<HTMLSelectElement>) => {
+    const room = ev.target.value ? roomOfOpening(ev.target.value) : undefined;
+    if (room) setValue('roomId', room.id, { shouldDirty: true });
+  };
+  const onRoomChange = (ev: React.ChangeEvent<HTMLSelectElement>) => {
+    const openingId = typeof watchOpening === 'string' ? watchOpening : '';
+    if (openingId && roomOfOpening(openingId)?.id !== ev.target.value) setValue('openingId', '', { shouldDirty: true });
+  };
 
   const numberWarning =
     typeof number === 'number' && Number.isFinite(number) ? zoneWarnings({ number, serial: String(serial ?? ''), input: Number(input) || 1 }, panel)[0]?.message : undefined;
@@ -155,6 +184,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
         { zoneId: zone.id, input: values },
         {
           onSuccess: (saved) => {
+            void premisesChanged();
             toast.success([`Zone ${saved.number} “${saved.description}” saved.`, ...elsewhereNotes(saved)].join(' '));
             onDone();
           },
@@ -164,6 +194,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
     } else {
       create.mutate(values, {
         onSuccess: (saved) => {
+          void premisesChanged();
           toast.success([`Zone ${saved.number} “${saved.description}” added.`, ...elsewhereNotes(saved)].join(' '));
           onDone();
         },
@@ -191,6 +222,17 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
         </div>
         {numberHint && !e.number && <p className={numberWarning ? 'mt-1 text-xs font-medium text-ochre-600' : 'mt-1 text-xs text-slate-500'}>{numberHint}</p>}
         <p className="mt-1 text-xs text-slate-500">Describe it as the household says it; keypads show up to 40 characters.</p>
+        <PremisesSelects
+          premises={premises.data}
+          loading={premises.isPending}
+          failed={premises.isError}
+          siteId={panel.siteId}
+          contact={OPENING_DEVICE_TYPES.includes(deviceType)}
+          roomField={register('roomId', { onChange: onRoomChange })}
+          openingField={register('openingId', { onChange: onOpeningChange })}
+          roomError={e.roomId?.message}
+          openingError={e.openingId?.message}
+        />
       </fieldset>
 
       <fieldset>
@@ -303,5 +345,90 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
         </Button>
       </div>
     </form>
+  );
+}
+
+interface PremisesSelectsProps {
+  premises: ApiPremises | undefined;
+  loading: boolean;
+  failed: boolean;
+  siteId: string;
+  /** a door, window or garage contact: the opening comes first */
+  contact: boolean;
+  roomField: React.SelectHTMLAttributes<HTMLSelectElement> & { ref: React.Ref<HTMLSelectElement> };
+  openingField: React.SelectHTMLAttributes<HTMLSelectElement> & { ref: React.Ref<HTMLSelectElement> };
+  roomError: string | undefined;
+  openingError: string | undefined;
+}
+
+/**
+ * Room and opening selects, grouped by floor, from the site's premises; choosing an opening
+ * sets its room. They appear once the premises are in, so the select shows the saved link.
+ */
+function PremisesSelects({ premises, loading, failed, siteId, contact, roomField, openingField, roomError, openingError }: PremisesSelectsProps) {
+  const floors = premises?.floors ?? [];
+  const rooms = floors.flatMap((f) => f.rooms);
+  const hasOpenings = rooms.some((r) => r.openings.length > 0);
+  if (loading)
+    return (
+      <div className="mt-3 grid gap-3 sm:grid-cols-2" role="status" aria-label="Loading the rooms of this site">
+        <Skeleton className="h-16 w-full" />
+        <Skeleton className="h-16 w-full" />
+      </div>
+    );
+  if (failed) return <p className="mt-3 text-xs text-clay-600">The rooms of this site could not be read; the zone keeps its room and opening.</p>;
+  if (rooms.length === 0)
+    return (
+      <p className="mt-3 text-xs text-slate-500">
+        No rooms recorded for this site yet.{' '}
+        <Link to={paths.firm.premises(siteId)} className="font-medium text-brass-700 underline">
+          Record the premises
+        </Link>{' '}
+        to link zones to what they protect.
+      </p>
+    );
+  const room = (
+    <FormField key="room" label="Room" error={roomError}>
+      <Select {...roomField}>
+        <option value="">Not linked to a room</option>
+        {floors
+          .filter((f) => f.rooms.length > 0)
+          .map((f) => (
+            <optgroup key={f.id} label={f.name}>
+              {f.rooms.map((r) => (
+                <option key={r.id} value={r.id}>
+                  {r.name}
+                </option>
+              ))}
+            </optgroup>
+          ))}
+      </Select>
+    </FormField>
+  );
+  const opening = (
+    <FormField key="opening" label="Door or window" error={openingError}>
+      <Select {...openingField}>
+        <option value="">{hasOpenings ? 'Not linked to an opening' : 'No doors or windows recorded'}</option>
+        {floors
+          .filter((f) => f.rooms.some((r) => r.openings.length > 0))
+          .map((f) => (
+            <optgroup key={f.id} label={f.name}>
+              {f.rooms.flatMap((r) =>
+                r.openings.map((o) => (
+                  <option key={o.id} value={o.id}>
+                    {r.name} · {o.label}
+                  </option>
+                )),
+              )}
+            </optgroup>
+          ))}
+      </Select>
+    </FormField>
+  );
+  return (
+    <div className="mt-3 space-y-1">
+      <div className="grid gap-3 sm:grid-cols-2">{contact ? [opening, room] : [room, opening]}</div>
+      <p className="text-xs text-slate-500">{contact ? 'A contact protects a door or window; choosing one sets its room.' : 'A motion, smoke or CO device protects a room.'}</p>
+    </div>
   );
 }

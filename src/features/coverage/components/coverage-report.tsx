@@ -1,0 +1,305 @@
+/**
+ * A site's coverage as people read it: the summary line, the counts, the findings (life
+ * safety first, with its caution word for word), then floor by floor, room by room, every
+ * opening with its symbol and state word.
+ */
+import { DEVICE_TYPE_LABELS } from '@domain/devices';
+import { OPENING_KIND_LABELS, ROOM_KIND_LABELS } from '@domain/premises';
+import { LifeSafetyCaution, TriangleMark } from '@/components/coverage/finding-mark';
+import { OpeningSymbol, OpeningStateWords } from '@/components/coverage/opening-symbol';
+import { PlanView, planImageSrc, type PlanPin } from '@/components/coverage/plan-view';
+import { Badge, type BadgeTone } from '@/components/ui/badge';
+import { cn } from '@/lib/cn';
+import type { ApiCoverage, ApiCoverageFinding, ApiCoverageRoom, ApiFloor, ApiPremisesZone } from '@/types/api';
+import type { FindingSeverity } from '@domain/coverage';
+import { isLifeSafetyFinding } from '../api/coverage-queries';
+
+export const SEVERITY_WORDS: Record<FindingSeverity, { word: string; tone: BadgeTone }> = {
+  error: { word: 'Gap', tone: 'bad' },
+  warning: { word: 'Check', tone: 'warn' },
+  info: { word: 'Note', tone: 'neutral' },
+};
+
+function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Summary
+// ---------------------------------------------------------------------------------------------
+
+function Count({ value, label, tone }: { value: number; label: string; tone?: 'ok' | 'bad' }) {
+  return (
+    <div className="flex flex-col-reverse justify-end rounded-md border border-line bg-paper/60 px-3 py-2">
+      <dt className="text-xs leading-snug text-slate-500">{label}</dt>
+      <dd className={cn('text-xl font-semibold tabular-nums', tone === 'ok' && 'text-sage-600', tone === 'bad' && value > 0 && 'text-clay-600')}>
+        {value}
+      </dd>
+    </div>
+  );
+}
+
+export function CoverageSummary({ coverage }: { coverage: ApiCoverage }) {
+  const { total, protected: covered, unprotectedGroundReachable } = coverage.openings;
+  const lifeSafety = coverage.findings.filter(isLifeSafetyFinding).length;
+  return (
+    <section aria-labelledby="coverage-summary" className="rounded-md border border-line bg-card p-4 sm:p-5">
+      <h2 id="coverage-summary" className="sr-only">
+        Summary
+      </h2>
+      <p className="text-xl leading-snug font-semibold text-ink sm:text-2xl">{coverage.summary}</p>
+      <dl className="mt-4 grid grid-cols-2 gap-2 sm:grid-cols-4">
+        <Count value={total} label="Openings" />
+        <Count value={covered} label="Protected" tone="ok" />
+        <Count value={total - covered} label="No sensor" tone="bad" />
+        <Count value={unprotectedGroundReachable} label="Reachable from the ground, no sensor" tone="bad" />
+      </dl>
+      {lifeSafety > 0 && (
+        <p className="mt-3 flex items-center gap-2 text-sm font-medium text-clay-600">
+          <TriangleMark />
+          {plural(lifeSafety, 'life-safety finding')} — see below.
+        </p>
+      )}
+    </section>
+  );
+}
+
+/** The symbols and their words, once per page. */
+export function CoverageLegend() {
+  return (
+    <ul className="flex flex-wrap gap-x-5 gap-y-2 text-sm" aria-label="What the symbols mean">
+      <li className="flex items-center gap-2">
+        <OpeningSymbol kind="window" state="protected" className="size-6" />
+        <span>
+          <span className="font-medium text-sage-600">Protected</span> — a sensor in service
+        </span>
+      </li>
+      <li className="flex items-center gap-2">
+        <OpeningSymbol kind="window" state="none" className="size-6" />
+        <span>
+          <span className="font-medium text-clay-600">No sensor</span> — none, or not in service
+        </span>
+      </li>
+    </ul>
+  );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Findings
+// ---------------------------------------------------------------------------------------------
+
+interface FindingGroup {
+  key: string;
+  severity: FindingSeverity;
+  rule: string;
+  source: string;
+  findings: ApiCoverageFinding[];
+}
+
+/** Findings of the same rule together, so the rule and its source are read once; most severe first. */
+function groupByRule(findings: readonly ApiCoverageFinding[]): FindingGroup[] {
+  const groups = new Map<string, FindingGroup>();
+  for (const f of findings) {
+    const key = `${f.code}|${f.rule}`;
+    const group = groups.get(key) ?? { key, severity: f.severity, rule: f.rule, source: f.source, findings: [] };
+    group.findings.push(f);
+    groups.set(key, group);
+  }
+  const order: Record<FindingSeverity, number> = { error: 0, warning: 1, info: 2 };
+  return [...groups.values()].sort((a, b) => (order[a.severity] ?? 3) - (order[b.severity] ?? 3));
+}
+
+function FindingGroupItem({ group, lifeSafety }: { group: FindingGroup; lifeSafety: boolean }) {
+  const severity = SEVERITY_WORDS[group.severity] ?? SEVERITY_WORDS.info;
+  return (
+    <li className="py-3 first:pt-0 last:pb-0">
+      <div className="flex items-center gap-2">
+        {lifeSafety && <TriangleMark tone={group.severity === 'error' ? 'clay' : 'ochre'} />}
+        <Badge tone={severity.tone}>{severity.word}</Badge>
+        {group.findings.length > 1 && <span className="text-xs text-slate-500">{group.findings.length} places</span>}
+      </div>
+      <p className="mt-1.5 text-sm font-semibold text-ink">
+        <span className="sr-only">Rule: </span>
+        {group.rule}
+      </p>
+      <ul className="mt-1 space-y-1">
+        {group.findings.map((f, i) => (
+          <li key={`${f.roomId ?? f.floorId ?? ''}-${i}`} className="flex gap-2 text-sm text-ink">
+            <span className="mt-2 size-1 shrink-0 rounded-full bg-slate-500" aria-hidden="true" />
+            <span className="min-w-0">{f.message}</span>
+          </li>
+        ))}
+      </ul>
+      <p className="mt-1.5 text-xs text-slate-500">Source: {group.source}</p>
+    </li>
+  );
+}
+
+/**
+ * The smoke and CO findings, each with its triangle, severity word, rule and source, and the
+ * caution word for word whenever the answer carries it or any finding is shown.
+ */
+export function LifeSafetyFindings({ coverage, className }: { coverage: ApiCoverage; className?: string }) {
+  const lifeSafety = coverage.findings.filter(isLifeSafetyFinding);
+  const showCaution = Boolean(coverage.caution) || coverage.findings.length > 0;
+  return (
+    <section aria-labelledby="life-safety-heading" className={cn('rounded-md border border-line bg-card', className)}>
+      <header className="flex items-center gap-2 border-b border-line px-4 py-3">
+        <TriangleMark tone={lifeSafety.length > 0 ? 'clay' : 'slate'} />
+        <h2 id="life-safety-heading" className="text-sm font-semibold">
+          Life safety{lifeSafety.length > 0 ? ` · ${lifeSafety.length}` : ''}
+        </h2>
+      </header>
+      <div className="space-y-3 p-4">
+        {lifeSafety.length > 0 ? (
+          <ul className="divide-y divide-line" aria-label="Life-safety findings">
+            {groupByRule(lifeSafety).map((g) => (
+              <FindingGroupItem key={g.key} group={g} lifeSafety />
+            ))}
+          </ul>
+        ) : (
+          <p className="text-sm text-slate-500">No smoke or CO findings for the rooms and devices recorded.</p>
+        )}
+        {showCaution && <LifeSafetyCaution />}
+      </div>
+    </section>
+  );
+}
+
+/** The other findings: ground-reachable openings without a sensor, rooms without interior detection. */
+export function OtherFindings({ coverage, className }: { coverage: ApiCoverage; className?: string }) {
+  const others = coverage.findings.filter((f) => !isLifeSafetyFinding(f));
+  return (
+    <section aria-labelledby="other-findings-heading" className={cn('rounded-md border border-line bg-card', className)}>
+      <header className="border-b border-line px-4 py-3">
+        <h2 id="other-findings-heading" className="text-sm font-semibold">
+          Intrusion gaps{others.length > 0 ? ` · ${others.length}` : ''}
+        </h2>
+      </header>
+      <div className="p-4">
+        {others.length > 0 ? (
+          <ul className="divide-y divide-line" aria-label="Other findings">
+            {groupByRule(others).map((g) => (
+              <FindingGroupItem key={g.key} group={g} lifeSafety={false} />
+            ))}
+          </ul>
+        ) : (
+          <p className="text-sm text-slate-500">
+            No gaps: every opening reachable from the ground has a sensor, and every room with openings has interior detection.
+          </p>
+        )}
+      </div>
+    </section>
+  );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Floors, rooms, openings
+// ---------------------------------------------------------------------------------------------
+
+function RoomCoverage({ room }: { room: ApiCoverageRoom }) {
+  const devices = room.devices ?? [];
+  return (
+    <li className="py-3 first:pt-0 last:pb-0">
+      <h4 className="text-sm font-semibold">
+        {room.name}
+        {room.kind && <span className="font-normal text-slate-500"> · {ROOM_KIND_LABELS[room.kind]}</span>}
+      </h4>
+      {room.openings.length === 0 ? (
+        <p className="mt-1 text-sm text-slate-500">No doors or windows recorded.</p>
+      ) : (
+        <ul className="mt-2 space-y-2">
+          {room.openings.map((o) => {
+            const state = o.protected ? 'protected' : 'none';
+            return (
+              <li key={o.id} className="flex items-center gap-3">
+                <OpeningSymbol kind={o.kind} state={state} />
+                <div className="min-w-0 text-sm">
+                  <p className="break-words">
+                    <span className="font-medium">{o.label}</span>
+                    <span className="text-slate-500">
+                      {' '}
+                      · {OPENING_KIND_LABELS[o.kind]}
+                      {o.groundReachable ? ' · reachable from the ground' : ''}
+                    </span>
+                  </p>
+                  <OpeningStateWords state={state} zoneDescription={o.zoneDescription} className="block" />
+                </div>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+      {devices.length > 0 && (
+        <p className="mt-2 text-xs text-slate-500">
+          Also here: {devices.map((d) => `${d.description} (${DEVICE_TYPE_LABELS[d.deviceType].toLowerCase()})`).join(', ')}
+        </p>
+      )}
+    </li>
+  );
+}
+
+interface CoverageFloorsProps {
+  coverage: ApiCoverage;
+  /** the premises' floors, for their plan images */
+  planFloors?: readonly ApiFloor[] | undefined;
+  zones?: readonly ApiPremisesZone[] | undefined;
+}
+
+export function CoverageFloors({ coverage, planFloors, zones }: CoverageFloorsProps) {
+  const panels = new Set((zones ?? []).map((z) => z.panelId)).size;
+  return (
+    <div className="space-y-6">
+      {coverage.floors.map((floor) => {
+        const openings = floor.rooms.flatMap((r) => r.openings);
+        const covered = openings.filter((o) => o.protected).length;
+        const planFloor = planFloors?.find((f) => f.id === floor.id);
+        const src = planFloor ? planImageSrc(planFloor) : null;
+        const pins: PlanPin[] = (zones ?? [])
+          .filter((z) => z.pin?.floorId === floor.id && z.status !== 'removed')
+          .map((z) => ({
+            zoneId: z.id,
+            number: z.number,
+            description: z.description,
+            panelLabel: panels > 1 ? z.panelLabel : undefined,
+            x: z.pin!.x,
+            y: z.pin!.y,
+          }));
+        return (
+          <section key={floor.id} aria-labelledby={`coverage-floor-${floor.id}`} className="rounded-md border border-line bg-card">
+            <header className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-1 border-b border-line px-4 py-3">
+              <h3 id={`coverage-floor-${floor.id}`} className="text-base font-semibold">
+                {floor.name}
+              </h3>
+              <p className="text-sm text-slate-500">
+                {floor.level !== undefined ? `Level ${floor.level}${floor.belowGrade ? ' · below grade' : ''} · ` : ''}
+                {openings.length === 0 ? 'no openings' : `${covered} of ${plural(openings.length, 'opening')} protected`}
+              </p>
+            </header>
+            <div className="p-4">
+              {src && (
+                <figure className="mb-4">
+                  <PlanView src={src} alt={`Floor plan of ${floor.name}`} pins={pins} />
+                  <figcaption className="mt-2 text-xs text-slate-500">
+                    {pins.length > 0
+                      ? `${plural(pins.length, 'device')} on the plan; tap, hover or focus a pin for its zone.`
+                      : 'No devices placed on this plan yet.'}
+                  </figcaption>
+                </figure>
+              )}
+              {floor.rooms.length === 0 ? (
+                <p className="text-sm text-slate-500">No rooms recorded on this floor.</p>
+              ) : (
+                <ul className="divide-y divide-line">
+                  {floor.rooms.map((room) => (
+                    <RoomCoverage key={room.id} room={room} />
+                  ))}
+                </ul>
+              )}
+            </div>
+          </section>
+        );
+      })}
+    </div>
+  );
+}
