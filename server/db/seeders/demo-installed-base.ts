@@ -16,6 +16,7 @@ import { Panel } from '../../models/Panel';
 import { Site } from '../../models/Site';
 import { Zone } from '../../models/Zone';
 import type { TenantFiles } from '../../storage/tenant-files';
+import { seedJobs } from './demo-jobs';
 import { seedPremises } from './demo-premises';
 
 const FIRST = ['Maren', 'Joel', 'Ines', 'Tobias', 'Odile', 'Ravi', 'Hedda', 'Callum', 'Petra', 'Amos', 'Liesl', 'Dario', 'Wren', 'Soren', 'Yara', 'Bram'];
@@ -76,7 +77,18 @@ export interface SeededInstalledBase {
 
 export async function seedInstalledBase(
   tenantId: string,
-  options: { seed: number; today: Date; timeZone: string; region: string; secrets: SecretBox; files: TenantFiles; transaction: Transaction; cp01FindingOnFirstPanel: boolean },
+  options: {
+    seed: number;
+    today: Date;
+    timeZone: string;
+    region: string;
+    secrets: SecretBox;
+    files: TenantFiles;
+    transaction: Transaction;
+    cp01FindingOnFirstPanel: boolean;
+    technicianIds: readonly string[];
+    coordinatorId: string | null;
+  },
 ): Promise<SeededInstalledBase> {
   const rnd = randomFrom(options.seed);
   const { transaction, today } = options;
@@ -199,6 +211,15 @@ export async function seedInstalledBase(
         zoneCount++;
       }
       await seedPremises(site, zonesByDescription, { transaction, files: options.files, withPlan: siteCount === 1 });
+      await seedJobs(site, [...zonesByDescription.values()], {
+        transaction,
+        files: options.files,
+        today,
+        installedOn,
+        technicianIds: options.technicianIds,
+        siteIndex: siteCount - 1,
+        coordinatorId: options.coordinatorId,
+      });
     }
   }
   return { clients: clientCount, sites: siteCount, zones: zoneCount };

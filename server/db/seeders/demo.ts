@@ -94,12 +94,16 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
         },
         { transaction },
       );
+      const technicianIds: string[] = [];
+      let coordinatorId: string | null = null;
       for (const person of firm.staff) {
         const user = await User.create(
           { tenantId: tenant.id, email: `${person.local}@${firm.domain}`, name: person.name, role: person.role, passwordHash },
           { transaction },
         );
         signIns.push({ email: user.email, role: person.role, firm: firm.name });
+        if (person.role === 'technician') technicianIds.push(user.id);
+        if (person.role === 'coordinator') coordinatorId = user.id;
       }
       await seedInstalledBase(tenant.id, {
         seed: firm.seed,
@@ -110,6 +114,8 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
         files,
         transaction,
         cp01FindingOnFirstPanel: true,
+        technicianIds,
+        coordinatorId,
       });
       await AuditEvent.create(
         { tenantId: tenant.id, actorId: null, actorRole: null, action: 'firm.created', subjectType: 'Tenant', subjectId: tenant.id, details: { demo: true }, ip: null },
