@@ -21,6 +21,7 @@ import { premisesRouter } from './routes/premises/router';
 import { sitesRouter } from './routes/sites/router';
 import { zonesRouter } from './routes/zones/router';
 import { invitationsRouter } from './routes/invitations/router';
+import { jobsRouter } from './routes/jobs/router';
 import { operatorRouter } from './routes/operator/router';
 import { sessionRouter } from './routes/session/router';
 import { staffRouter } from './routes/staff/router';
@@ -123,6 +124,7 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', panelsRouter(deps));
   app.use('/api', zonesRouter(deps));
   app.use('/api', premisesRouter(deps));
+  app.use('/api', jobsRouter(deps));
   app.use('/api', apiNotFound);
   app.use('/api', errorHandler(deps.logger));
 

@@ -1,10 +1,19 @@
 import nodemailer from 'nodemailer';
 
+/** A file sent with an e-mail (a completion report, say); handed to nodemailer as is. */
+export interface MailAttachment {
+  filename: string;
+  content: Buffer;
+  contentType: string;
+}
+
 export interface MailMessage {
   to: string;
   subject: string;
   text: string;
   html: string;
+  /** optional files; the memory mailer keeps them so tests can read them */
+  attachments?: MailAttachment[];
 }
 
 export interface Mailer {

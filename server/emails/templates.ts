@@ -9,7 +9,7 @@ function escapeHtml(s: string): string {
   return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 }
 
-function layout(title: string, paragraphs: string[], action: { label: string; href: string }, footer: string): string {
+function layout(title: string, paragraphs: string[], action: { label: string; href: string } | null, footer: string): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 14px;line-height:1.5">${escapeHtml(p)}</p>`).join('');
   return `<!doctype html><html><body style="margin:0;background:#f6f4ef;font-family:'IBM Plex Sans',Arial,sans-serif;color:#1d2a30">
 <div style="max-width:560px;margin:0 auto;padding:24px">
@@ -17,8 +17,12 @@ function layout(title: string, paragraphs: string[], action: { label: string; hr
 <div style="background:#ffffff;border:1px solid #d9d4c8;border-radius:6px;padding:24px">
 <h1 style="font-size:20px;margin:0 0 16px">${escapeHtml(title)}</h1>
 ${body}
-<p style="margin:20px 0"><a href="${escapeHtml(action.href)}" style="background:#8f5c17;color:#ffffff;padding:10px 16px;border-radius:6px;text-decoration:none;display:inline-block">${escapeHtml(action.label)}</a></p>
-<p style="margin:0;font-size:13px;color:#5d6b73">If the button does not work, open this address: ${escapeHtml(action.href)}</p>
+${
+  action
+    ? `<p style="margin:20px 0"><a href="${escapeHtml(action.href)}" style="background:#8f5c17;color:#ffffff;padding:10px 16px;border-radius:6px;text-decoration:none;display:inline-block">${escapeHtml(action.label)}</a></p>
+<p style="margin:0;font-size:13px;color:#5d6b73">If the button does not work, open this address: ${escapeHtml(action.href)}</p>`
+    : ''
+}
 </div>
 <p style="font-size:13px;color:#5d6b73;margin-top:16px">${escapeHtml(footer)}</p>
 </div></body></html>`;
@@ -58,5 +62,35 @@ export function passwordResetEmail(input: { to: string; name: string; link: stri
     subject,
     text: `${lines.join('\n\n')}\n\nChoose a new password: ${input.link}\n\nIf it was not you, ignore this e-mail: your password stays as it is.\n`,
     html: layout(subject, lines, { label: 'Choose a new password', href: input.link }, 'If it was not you, ignore this e-mail: your password stays as it is.'),
+  };
+}
+
+/**
+ * The completion report of a job, e-mailed to the client with the PDF attached: what was
+ * done, when, and who to call. Only client-visible facts (never internal notes).
+ */
+export function jobCompletionEmail(input: {
+  to: string;
+  firmName: string;
+  siteName: string;
+  jobKindLabel: string;
+  summary: string;
+  completedOn: string;
+  technicianName: string | null;
+  report: { filename: string; content: Buffer };
+}): MailMessage {
+  const subject = `${input.jobKindLabel} at ${input.siteName} is complete`;
+  const lines = [
+    `${input.firmName} completed the visit at ${input.siteName} on ${input.completedOn}${input.technicianName ? `; ${input.technicianName} did the work` : ''}.`,
+    `Work done: ${input.summary}`,
+    'The completion report is attached as a PDF: the work done, parts, the checklist and the result of testing each zone with the monitoring center. Keep it with your alarm papers.',
+  ];
+  const footer = `Questions about this visit? Contact ${input.firmName}; they keep the report with your site’s service history.`;
+  return {
+    to: input.to,
+    subject,
+    text: `${lines.join('\n\n')}\n\n${footer}\n`,
+    html: layout(subject, lines, null, footer),
+    attachments: [{ filename: input.report.filename, content: input.report.content, contentType: 'application/pdf' }],
   };
 }

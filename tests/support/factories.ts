@@ -21,6 +21,8 @@ import type { OpeningKind, RoomKind } from '@domain/premises';
 import { Floor } from '@server/models/Floor';
 import { Opening } from '@server/models/Opening';
 import { Room } from '@server/models/Room';
+import type { JobKind, JobState } from '@domain/jobs';
+import { Job, type ChecklistItem, type JobPart } from '@server/models/Job';
 
 export const TEST_PASSWORD = 'correct horse battery';
 let passwordHash: Promise<string> | undefined;
@@ -251,5 +253,54 @@ export async function buildOpening(
     label: overrides.label ?? 'Front window',
     groundReachable: overrides.groundReachable ?? true,
     position: overrides.position ?? 0,
+  });
+}
+
+// ---- Jobs ----
+
+/**
+ * A job at this site: a service call, requested, nothing assigned, unless given. A job with a
+ * technician and a start is `scheduled` unless a state is given (as POST /api/jobs decides).
+ */
+export async function buildJob(
+  site: Site,
+  overrides: Partial<{
+    kind: JobKind;
+    state: JobState;
+    technicianId: string | null;
+    scheduledStart: Date | null;
+    scheduledEnd: Date | null;
+    summary: string;
+    clientNotes: string;
+    internalNotes: string;
+    parts: JobPart[];
+    checklist: ChecklistItem[];
+    touchedZoneIds: string[];
+    cancelReason: string;
+    startedAt: Date | null;
+    completedAt: Date | null;
+    completedById: string | null;
+  }> = {},
+): Promise<Job> {
+  const technicianId = overrides.technicianId ?? null;
+  const scheduledStart = overrides.scheduledStart ?? null;
+  return Job.create({
+    tenantId: site.tenantId,
+    siteId: site.id,
+    kind: overrides.kind ?? 'service_call',
+    state: overrides.state ?? (technicianId && scheduledStart ? 'scheduled' : 'requested'),
+    technicianId,
+    scheduledStart,
+    scheduledEnd: overrides.scheduledEnd ?? null,
+    summary: overrides.summary ?? 'Replace back-door contact',
+    clientNotes: overrides.clientNotes ?? '',
+    internalNotes: overrides.internalNotes ?? '',
+    parts: overrides.parts ?? [],
+    checklist: overrides.checklist ?? [],
+    touchedZoneIds: overrides.touchedZoneIds ?? [],
+    cancelReason: overrides.cancelReason ?? '',
+    startedAt: overrides.startedAt ?? null,
+    completedAt: overrides.completedAt ?? null,
+    completedById: overrides.completedById ?? null,
   });
 }

@@ -157,6 +157,7 @@ export function documentsRouter(deps: AppDeps): Router {
     authorizeRecord(req, 'delete', 'Document', doc.get({ plain: true }), 'document');
     await inTransaction(req, deps, (ctx) => deleteDocument(ctx, doc));
     await deps.files.remove(doc.tenantId, doc.fileId).catch(() => undefined);
+    if (doc.thumbnailFileId) await deps.files.remove(doc.tenantId, doc.thumbnailFileId).catch(() => undefined);
     res.status(204).end();
   });
 
