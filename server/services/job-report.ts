@@ -259,7 +259,7 @@ export function buildCompletionReport(data: CompletionReportData): Promise<Compl
       { title: 'Zone', width: 44 },
       { title: 'Description', width: 140 },
       { title: 'Result', width: 70 },
-      { title: 'Monitoring center confirmed', width: 90 },
+      { title: 'Center confirmed', width: 90 },
       { title: 'Note', width: width - 344 },
     ],
     data.walkTests.map((w) => [

@@ -281,7 +281,7 @@ describe('what the report says', () => {
       'Front door',
       'Gap too wide',
       'Failed',
-      'Monitoring center confirmed',
+      'Center confirmed',
       'Photos',
       'Front door contact',
     ])
