@@ -4,6 +4,7 @@
  * another site or another firm reads exactly like an id that does not exist (400 naming the
  * field; never a hint that the record is elsewhere).
  */
+import { Op } from 'sequelize';
 import { type Ctx, scoped } from '../context';
 import { errors } from '../errors';
 import { Floor } from '../models/Floor';
@@ -57,5 +58,21 @@ export async function resolvePremisesLinks(ctx: Ctx, siteId: string, links: Prem
   }
   const first = Object.entries(fields)[0];
   if (first) throw errors.validation(`${first[0]}: ${first[1]}`, fields);
+  return out;
+}
+
+/** "Room · Opening" (or the room alone) for each zone linked to the premises. */
+export async function zoneLocations(ctx: Ctx, zones: readonly { id: string; roomId: string | null; openingId: string | null }[]): Promise<Map<string, string>> {
+  const roomIds = [...new Set(zones.map((z) => z.roomId).filter((id): id is string => !!id))];
+  const openingIds = [...new Set(zones.map((z) => z.openingId).filter((id): id is string => !!id))];
+  const rooms = roomIds.length ? await Room.findAll({ where: scoped(ctx, { id: { [Op.in]: roomIds } }) }) : [];
+  const openings = openingIds.length ? await Opening.findAll({ where: scoped(ctx, { id: { [Op.in]: openingIds } }) }) : [];
+  const roomName = new Map(rooms.map((r) => [r.id, r.name]));
+  const openingLabel = new Map(openings.map((o) => [o.id, o.label]));
+  const out = new Map<string, string>();
+  for (const z of zones) {
+    const parts = [z.roomId ? roomName.get(z.roomId) : undefined, z.openingId ? openingLabel.get(z.openingId) : undefined].filter((p): p is string => !!p);
+    if (parts.length) out.set(z.id, parts.join(' · '));
+  }
   return out;
 }

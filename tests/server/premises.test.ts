@@ -599,3 +599,27 @@ describe('zone links (POST /api/panels/:panelId/zones, PATCH /api/zones/:zoneId)
     expect(res.body.data.pin).toEqual({ floorId: floor.id, x: 0.3, y: 0.6 });
   });
 });
+
+describe('zone locations (programming sheet)', () => {
+  it('names each linked zone’s room and opening, firm-scoped', async () => {
+    const { zoneLocations } = await import('@server/services/premises-links');
+    const { abilityFor } = await import('@domain/abilities');
+    const f = await buildFirmWithSite();
+    const floor = await buildFloor(f.site);
+    const room = await buildRoom(floor, { name: 'Den' });
+    const opening = await buildOpening(room, { label: 'Den window' });
+    const panel = await buildPanel(f.site);
+    const linked = await buildZone(panel, { number: 9 });
+    await linked.update({ roomId: room.id, openingId: opening.id });
+    const roomOnly = await buildZone(panel, { number: 10, deviceType: 'motion' });
+    await roomOnly.update({ roomId: room.id });
+    const loose = await buildZone(panel, { number: 11 });
+    const ctx = { user: null, tenant: null, tenantId: f.firm.id, ability: abilityFor(null) };
+    const locations = await zoneLocations(ctx, [linked, roomOnly, loose]);
+    expect(locations.get(linked.id)).toBe('Den · Den window');
+    expect(locations.get(roomOnly.id)).toBe('Den');
+    expect(locations.has(loose.id)).toBe(false);
+    const otherFirm = { ...ctx, tenantId: (await buildFirmWithSite()).firm.id };
+    expect((await zoneLocations(otherFirm, [linked])).size).toBe(0);
+  });
+});

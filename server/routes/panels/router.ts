@@ -9,6 +9,7 @@ import { inputOf, validate } from '../../middlewares/validate';
 import { Panel } from '../../models/Panel';
 import { presentPanel, presentZoneChange } from '../../presenters/panel';
 import { createPanel, deletePanel, markPanelProgrammed, panelChanges, settingsOf, updatePanel, zonesByPanel } from '../../services/panels';
+import { zoneLocations } from '../../services/premises-links';
 import { buildProgrammingSheet } from '../../services/programming-sheet';
 import { downloadName } from '../../services/zone-export';
 import { panelZones, zoneValuesOf } from '../../services/zones';
@@ -97,6 +98,7 @@ export function panelsRouter(deps: AppDeps): Router {
     authorizePanelZones(req, panel, 'read');
     const site = await loadSite(req, panel.siteId);
     const zones = (await panelZones(req.ctx, panel.id)).filter((z) => z.status !== 'removed');
+    const locations = await zoneLocations(req.ctx, zones);
     const settings = settingsOf(panel);
     const sheet = await buildProgrammingSheet({
       firmName: req.ctx.tenant?.name ?? '',
@@ -122,8 +124,7 @@ export function panelsRouter(deps: AppDeps): Router {
       },
       settings,
       findings: auditPanelSettings(settings, zones),
-      // rooms and openings come with the premises: no location yet
-      zones: zones.map((zone) => ({ ...zoneValuesOf(zone), location: null })),
+      zones: zones.map((zone) => ({ ...zoneValuesOf(zone), location: locations.get(zone.id) ?? null })),
       generatedAt: nowOf(deps),
     });
     res.set('Content-Type', 'application/pdf');
