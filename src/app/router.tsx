@@ -104,6 +104,10 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'sites/:siteId/coverage', ...page(() => import('./routes/firm/coverage')) },
             { path: 'settings', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/settings')) },
             { path: 'panels/:panelId', ...page(() => import('./routes/firm/panel')) },
+            { path: 'jobs', ...page(() => import('./routes/firm/jobs')) },
+            { path: 'jobs/:jobId', ...page(() => import('./routes/firm/job')) },
+            { path: 'today', ...page(() => import('./routes/firm/today')) },
+            { path: 'schedule', ...page(() => import('./routes/firm/schedule')) },
           ],
         },
         {

@@ -20,6 +20,10 @@ export const paths = {
     editSite: (siteId = ':siteId') => `/app/sites/${siteId}/edit`,
     premises: (siteId = ':siteId') => `/app/sites/${siteId}/premises`,
     coverage: (siteId = ':siteId') => `/app/sites/${siteId}/coverage`,
+    jobs: '/app/jobs',
+    job: (jobId = ':jobId') => `/app/jobs/${jobId}`,
+    today: '/app/today',
+    schedule: '/app/schedule',
   },
   operator: {
     root: '/operator',

@@ -384,3 +384,85 @@ export interface ApiCoverage {
   caution?: string | null;
   floors: ApiCoverageFloor[];
 }
+
+// ---------------------------------------------------------------------------------------------
+// Jobs
+// ---------------------------------------------------------------------------------------------
+import type { JobKind, JobState, WalkTestResult } from '@domain/jobs';
+
+export interface ApiJobPart {
+  description: string;
+  quantity: number;
+  unitPriceCents: number;
+}
+
+export interface ApiChecklistItem {
+  label: string;
+  done: boolean;
+}
+
+/** One recorded walk-test result of a job (the zones the job touched come first). */
+export interface ApiWalkTestRow {
+  zoneId: string;
+  result: WalkTestResult;
+  monitoringConfirmed: boolean;
+  note: string;
+  panelId?: string | null;
+  zoneNumber?: number | null;
+  zoneDescription?: string;
+  touched?: boolean;
+  recordedById?: string | null;
+  recordedAt?: string;
+}
+
+/** A photo or file of a job: a document record with its thumbnail when it is an image. */
+export interface ApiJobFile extends ApiDocument {
+  jobId: string | null;
+  thumbnailUrl?: string | null;
+  fileUrl?: string;
+}
+
+export interface ApiJob {
+  id: string;
+  siteId: string;
+  siteName: string;
+  /** the site's time zone, when the server sends it with the job */
+  siteTimeZone?: string;
+  kind: JobKind;
+  state: JobState;
+  scheduledStart: string | null;
+  scheduledEnd: string | null;
+  technicianId: string | null;
+  technicianName: string | null;
+  summary: string;
+  clientNotes: string;
+  /** staff only */
+  internalNotes?: string;
+  parts: ApiJobPart[];
+  checklist: ApiChecklistItem[];
+  touchedZoneIds: string[];
+  cancelReason: string;
+  requestedByClient?: boolean;
+  startedAt?: string | null;
+  completedAt: string | null;
+  completedById?: string | null;
+  /** the completion report (PDF), once completed */
+  reportUrl?: string | null;
+  walkTest: ApiWalkTestRow[];
+  files: ApiJobFile[];
+  /** other open jobs of the same technician at the same time (staff only) */
+  overlaps?: string[];
+  createdAt?: string;
+  updatedAt?: string;
+}
+
+export type ApiHistoryType = 'job' | 'zone_change' | 'programming';
+
+/** One entry of a site's service history (GET /api/sites/:siteId/history), newest first. */
+export interface ApiHistoryEntry {
+  type: ApiHistoryType;
+  at: string;
+  title: string;
+  detail: string;
+  link: { kind: 'job' | 'zone' | 'panel'; id: string };
+}

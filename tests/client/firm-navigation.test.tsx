@@ -16,21 +16,30 @@ function sessionFor(role: Role): SessionInfo {
   };
 }
 
-function navLabels(): string[] {
+function navLabels(which = 0): string[] {
   const navs = screen.getAllByRole('navigation', { name: 'Workspace' });
-  return [...navs[0]!.querySelectorAll('a')].map((a) => a.textContent?.trim() ?? '');
+  return [...navs[which]!.querySelectorAll('a, button')].map((a) => a.textContent?.trim() ?? '').filter((t) => t !== 'Sign out' || which === 1);
 }
 
 describe('firm navigation shows only what the role may use', () => {
   const cases: [Role, string[]][] = [
-    ['owner', ['Overview', 'Clients', 'Staff', 'Firm settings']],
-    ['coordinator', ['Overview', 'Clients', 'Staff']],
-    ['technician', ['Overview', 'Clients', 'Staff']],
+    ['owner', ['Overview', 'Jobs', 'Schedule', 'Clients', 'Staff', 'Firm settings']],
+    ['coordinator', ['Overview', 'Jobs', 'Schedule', 'Clients', 'Staff']],
+    ['technician', ['Overview', 'Today', 'Jobs', 'Schedule', 'Clients', 'Staff']],
   ];
   it.each(cases)('%s sees %j', (role, expected) => {
     renderRoutes([{ path: '/', element: <FirmLayout /> }], { session: sessionFor(role) });
     expect(navLabels()).toEqual(expected);
     expect(screen.getAllByText('Hollowbrook Alarms').length).toBeGreaterThan(0);
     expect(screen.getByText('Trial · 9 days left')).toBeInTheDocument();
+  });
+
+  const phoneCases: [Role, string[]][] = [
+    ['technician', ['Today', 'Jobs', 'Clients', 'Sign out']],
+    ['coordinator', ['Overview', 'Jobs', 'Clients', 'Sign out']],
+  ];
+  it.each(phoneCases)('%s has four items in the phone bar: %j', (role, expected) => {
+    renderRoutes([{ path: '/', element: <FirmLayout /> }], { session: sessionFor(role) });
+    expect(navLabels(1)).toEqual(expected);
   });
 });

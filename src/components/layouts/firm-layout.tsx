@@ -1,10 +1,10 @@
 import { NavLink, Outlet, useNavigate } from 'react-router-dom';
-import { Building2, Home, LayoutDashboard, LogOut, Settings, Users } from 'lucide-react';
+import { Building2, CalendarDays, ClipboardList, Home, LayoutDashboard, LogOut, Settings, Sun, Users } from 'lucide-react';
 import type { LucideIcon } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AbilityProvider, useAbilityFromRules } from '@/lib/ability';
 import { useSession, useSignOut } from '@/lib/auth';
-import { ROLE_LABELS } from '@domain/roles';
+import { ROLE_LABELS, type Role } from '@domain/roles';
 import type { AppAbility } from '@domain/abilities';
 import { MullionMark } from '@/components/ui/logo';
 import { Badge } from '@/components/ui/badge';
@@ -15,23 +15,38 @@ interface NavItem {
   label: string;
   icon: LucideIcon;
   end?: boolean;
-  visible: (ability: AppAbility) => boolean;
+  visible: (ability: AppAbility, role: Role | undefined) => boolean;
 }
 
 /** Only sections the role may use, and only screens that exist. */
 const NAV: NavItem[] = [
   { to: paths.firm.overview, label: 'Overview', icon: LayoutDashboard, end: true, visible: (a) => a.can('read', 'Tenant') },
+  { to: paths.firm.today, label: 'Today', icon: Sun, visible: (a, role) => role === 'technician' && a.can('read', 'Job') },
+  { to: paths.firm.jobs, label: 'Jobs', icon: ClipboardList, visible: (a) => a.can('read', 'Job') },
+  { to: paths.firm.schedule, label: 'Schedule', icon: CalendarDays, visible: (a) => a.can('read', 'Job') },
   { to: paths.firm.clients, label: 'Clients', icon: Home, visible: (a) => a.can('read', 'Client') },
   { to: paths.firm.staff, label: 'Staff', icon: Users, visible: (a) => a.can('read', 'User') },
   { to: paths.firm.settings, label: 'Firm settings', icon: Settings, visible: (a) => a.can('update', 'Tenant') },
 ];
+
+/**
+ * The phone's bottom bar holds three sections and Sign out: a technician's day first for
+ * technicians, the overview for the office; then jobs and clients.
+ */
+function phoneItems(items: NavItem[], role: Role | undefined): NavItem[] {
+  const wanted = role === 'technician' ? [paths.firm.today, paths.firm.jobs, paths.firm.clients] : [paths.firm.overview, paths.firm.jobs, paths.firm.clients];
+  const chosen = wanted.map((to) => items.find((i) => i.to === to)).filter((i): i is NavItem => Boolean(i));
+  for (const item of items) if (chosen.length < 3 && !chosen.includes(item)) chosen.push(item);
+  return chosen.slice(0, 3);
+}
 
 export function FirmLayout() {
   const session = useSession();
   const ability = useAbilityFromRules(session.rules);
   const signOut = useSignOut();
   const navigate = useNavigate();
-  const items = NAV.filter((item) => item.visible(ability));
+  const items = NAV.filter((item) => item.visible(ability, session.user?.role));
+  const phone = phoneItems(items, session.user?.role);
   const firm = session.tenant;
   const user = session.user;
 
@@ -91,7 +106,7 @@ export function FirmLayout() {
         </div>
 
         <nav aria-label="Workspace" className="fixed inset-x-0 bottom-0 z-40 grid h-16 grid-cols-4 border-t border-line bg-card md:hidden">
-          {items.slice(0, 3).map((item) => (
+          {phone.map((item) => (
             <NavLink
               key={item.to}
               to={item.to}
@@ -102,7 +117,7 @@ export function FirmLayout() {
               {item.label.replace('Firm settings', 'Settings')}
             </NavLink>
           ))}
-          {Array.from({ length: Math.max(0, 3 - items.length) }, (_, i) => (
+          {Array.from({ length: Math.max(0, 3 - phone.length) }, (_, i) => (
             <span key={`gap-${i}`} />
           ))}
           <button type="button" onClick={doSignOut} className="flex flex-col items-center justify-center gap-0.5 text-xs text-slate-500">

@@ -1,5 +1,5 @@
 import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { ArrowLeft, Pencil } from 'lucide-react';
 import { formatCents } from '@domain/plans';
 import { paths } from '@/config/paths';
@@ -10,6 +10,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { useAppAbility } from '@/lib/ability';
 import { formatDate } from '@/lib/format';
 import { SiteCoverageCard } from '@/features/coverage/components/site-coverage-card';
+import { NewJobButton, ServiceHistoryCard } from '@/features/jobs/components/service-history';
 import { SitePanels } from '@/features/panels/components/site-panels';
 import { siteQuery } from '@/features/sites/api/sites-queries';
 import { EmergencyContacts } from '@/features/sites/components/emergency-contacts';
@@ -35,6 +36,7 @@ export default function SitePage() {
   const { data: site } = useSuspenseQuery(siteQuery(siteId));
   const ability = useAppAbility();
   const canEdit = ability.can('update', 'Site');
+  const navigate = useNavigate();
   const a = site.address;
   const today = new Date().toISOString().slice(0, 10);
   const permit = dateState(site.permit.expiresOn, today);
@@ -49,11 +51,16 @@ export default function SitePage() {
         title={site.name}
         context={`${a.line1}${a.line2 ? `, ${a.line2}` : ''}, ${a.city}${a.region ? `, ${a.region}` : ''} ${a.postalCode}`}
         action={
-          canEdit && (
-            <ButtonLink to={paths.firm.editSite(site.id)} variant="secondary">
-              <Pencil className="size-4" aria-hidden="true" /> Edit site
-            </ButtonLink>
-          )
+          <>
+            {canEdit && (
+              <ButtonLink to={paths.firm.editSite(site.id)} variant="secondary">
+                <Pencil className="size-4" aria-hidden="true" /> Edit site
+              </ButtonLink>
+            )}
+            {ability.can('create', 'Job') && (
+              <NewJobButton site={{ id: site.id, name: site.name, timeZone: site.timeZone, clientName: site.clientName }} onCreated={(jobId) => void navigate(paths.firm.job(jobId))} />
+            )}
+          </>
         }
       />
       <div className="grid gap-6 lg:grid-cols-3">
@@ -61,6 +68,7 @@ export default function SitePage() {
           <SiteCoverageCard siteId={site.id} />
           <SitePanels siteId={site.id} />
           <SiteDocuments siteId={site.id} timeZone={site.timeZone} canUpload={ability.can('create', 'Document')} canEdit={ability.can('update', 'Document')} />
+          {ability.can('read', 'Job') && <ServiceHistoryCard siteId={site.id} timeZone={site.timeZone} />}
         </div>
         <div className="space-y-6">
           <Card title="Monitoring">
