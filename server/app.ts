@@ -16,6 +16,7 @@ import { contactsRouter } from './routes/contacts/router';
 import { documentsRouter } from './routes/documents/router';
 import { firmRouter } from './routes/firm/router';
 import { upkeepSettingsRouter } from './routes/firm/upkeep';
+import { checklistTemplatesRouter } from './routes/firm/checklists';
 import { panelsRouter } from './routes/panels/router';
 import { premisesRouter } from './routes/premises/router';
 import { sitesRouter } from './routes/sites/router';
@@ -115,6 +116,7 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', invitationsRouter(deps));
   app.use('/api', staffRouter(deps));
   app.use('/api', upkeepSettingsRouter(deps));
+  app.use('/api', checklistTemplatesRouter(deps));
   app.use('/api', firmRouter(deps));
   app.use('/api', operatorRouter(deps));
   app.use('/api', clientsRouter(deps));

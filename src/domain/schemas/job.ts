@@ -70,3 +70,12 @@ export const jobListQuery = listQuery.extend({
   from: instant.optional(),
   to: instant.optional(),
 });
+
+/** The firm's checklist per job kind (firm settings); a kind left out uses our default. */
+export const checklistTemplatesSchema = z.partialRecord(
+  z.enum(JOB_KINDS),
+  z
+    .array(z.string({ error: 'Write the checklist item.' }).trim().min(1, 'Write the checklist item, or remove the line.').max(200, 'Use at most 200 characters.'))
+    .max(50, 'At most 50 items per checklist.'),
+);
+export type ChecklistTemplates = z.infer<typeof checklistTemplatesSchema>;

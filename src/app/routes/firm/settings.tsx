@@ -5,6 +5,7 @@ import { firmQuery } from '@/features/firm/api/firm-queries';
 import { FirmSettingsForm } from '@/features/firm/components/firm-settings-form';
 import { LogoUpload } from '@/features/firm/components/logo-upload';
 import { UpkeepSettingsForm } from '@/features/firm/components/upkeep-settings-form';
+import { ChecklistTemplatesForm } from '@/features/firm/components/checklist-templates-form';
 
 export function loader(queryClient: QueryClient) {
   return queryClient.ensureQueryData(firmQuery());
@@ -21,6 +22,7 @@ export default function FirmSettingsPage() {
         </Card>
         <FirmSettingsForm key={firm.id} firm={firm} />
         <UpkeepSettingsForm canEdit />
+        <ChecklistTemplatesForm />
       </div>
     </>
   );
