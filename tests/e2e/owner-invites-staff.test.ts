@@ -62,9 +62,10 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await tech.getByRole('button', { name: 'Accept and sign in' }).click();
     await tech.waitForURL('**/app');
 
-    // A technician sees the overview and staff, never firm settings or invitations.
+    // A technician's phone bar leads to their day and the jobs, never to firm settings or invitations.
     const nav = tech.getByRole('navigation', { name: 'Workspace' }).last();
-    await expect.poll(() => nav.getByRole('link', { name: 'Staff' }).isVisible()).toBe(true);
+    await expect.poll(() => nav.getByRole('link', { name: 'Today' }).isVisible()).toBe(true);
+    await expect.poll(() => nav.getByRole('link', { name: 'Jobs' }).isVisible()).toBe(true);
     expect(await nav.getByRole('link', { name: /Settings/ }).count()).toBe(0);
     await tech.goto('/app/staff');
     await expect.poll(() => tech.getByRole('cell', { name: /^Tariq Vane/ }).isVisible()).toBe(true);
