@@ -12,6 +12,8 @@ import { apiNotFound, errorHandler } from './middlewares/error-handler';
 import { createAttemptLimiter } from './middlewares/rate-limit';
 import { sessionGuard } from './middlewares/session-guard';
 import { clientsRouter } from './routes/clients/router';
+import { portalRouter } from './routes/portal/router';
+import { clientInvitationsRouter } from './routes/client-invitations/router';
 import { contactsRouter } from './routes/contacts/router';
 import { documentsRouter } from './routes/documents/router';
 import { firmRouter } from './routes/firm/router';
@@ -119,6 +121,8 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', checklistTemplatesRouter(deps));
   app.use('/api', firmRouter(deps));
   app.use('/api', operatorRouter(deps));
+  app.use('/api', clientInvitationsRouter(deps));
+  app.use('/api', portalRouter(deps));
   app.use('/api', clientsRouter(deps));
   app.use('/api', sitesRouter(deps));
   app.use('/api', contactsRouter(deps));

@@ -10,6 +10,8 @@ export class Invitation extends TenantModel<InferAttributes<Invitation>, InferCr
   declare role: Role;
   declare tokenHash: string;
   declare invitedById: string | null;
+  /** For role `client`: the client record the new sign-in is linked to. */
+  declare clientId: CreationOptional<string | null>;
   declare expiresAt: Date;
   declare acceptedAt: CreationOptional<Date | null>;
   declare acceptedUserId: CreationOptional<string | null>;
@@ -27,6 +29,7 @@ export class Invitation extends TenantModel<InferAttributes<Invitation>, InferCr
         role: { type: DataTypes.STRING(20), allowNull: false },
         tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         invitedById: { type: DataTypes.UUID, allowNull: true },
+        clientId: { type: DataTypes.UUID, allowNull: true },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         acceptedAt: { type: DataTypes.DATE, allowNull: true },
         acceptedUserId: { type: DataTypes.UUID, allowNull: true },

@@ -40,7 +40,7 @@ async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ct
  */
 export async function inviteToFirm(
   ctx: Ctx,
-  input: { email: string; role: Role },
+  input: { email: string; role: Role; clientId?: string | null },
   deps: MailDeps & { now: Date },
 ): Promise<Invitation> {
   const taken = await User.count({ where: { email: input.email }, crossTenant: true, transaction: ctx.transaction });
@@ -57,6 +57,7 @@ export async function inviteToFirm(
       role: input.role,
       tokenHash,
       invitedById: ctx.user?.id ?? null,
+      clientId: input.role === 'client' ? (input.clientId ?? null) : null,
       expiresAt: new Date(deps.now.getTime() + LIMITS.invitationDays * DAY_MS),
       sentAt: deps.now,
     },
@@ -121,8 +122,16 @@ export async function acceptInvitation(
     if (claimed !== 1) throw notUsable();
     const taken = await User.count({ where: { email: invitation.email }, crossTenant: true, transaction });
     if (taken > 0) throw errors.emailTaken();
+    if (invitation.role === 'client' && !invitation.clientId) throw notUsable();
     const user = await User.create(
-      { tenantId: tenant.id, email: invitation.email, name: input.name, role: invitation.role, passwordHash },
+      {
+        tenantId: tenant.id,
+        email: invitation.email,
+        name: input.name,
+        role: invitation.role,
+        passwordHash,
+        clientId: invitation.role === 'client' ? invitation.clientId : null,
+      },
       { transaction },
     );
     await invitation.update({ acceptedUserId: user.id }, { transaction });

@@ -1,0 +1,169 @@
+import { Router, type Request, type RequestHandler } from 'express';
+import { Op } from 'sequelize';
+import { z } from 'zod';
+import { deviceLife } from '@domain/device-life';
+import { contactListSchema } from '@domain/schemas/contact';
+import { uuid } from '@domain/schemas/common';
+import { scoped } from '../../context';
+import type { AppDeps } from '../../deps';
+import { errors } from '../../errors';
+import { inputOf, validate } from '../../middlewares/validate';
+import { Job } from '../../models/Job';
+import { Site } from '../../models/Site';
+import { Zone } from '../../models/Zone';
+import { presentPastVisit, presentPortalDevice, presentUpcomingVisit } from '../../presenters/portal';
+import { presentContact } from '../../presenters/contact';
+import { presentCoverage } from '../../presenters/premises';
+import { listContacts, replaceContacts } from '../../services/contacts';
+import { coverageForSite } from '../../services/coverage';
+import { jobViews } from '../../services/jobs';
+import { requestService } from '../../services/portal';
+import { todayIn, upkeepOf, zoneValuesOf } from '../../services/zones';
+import { inTransaction, nowOf, pageOf } from '../helpers';
+
+const siteParams = z.object({ siteId: uuid });
+const serviceRequestSchema = z.object({
+  description: z.string({ error: 'Describe what needs attention.' }).trim().min(1, 'Describe what needs attention.').max(2000, 'Keep it under 2000 characters.'),
+  preferredTimes: z.string({ error: 'Say when suits you.' }).trim().min(1, 'Say when suits you.').max(500, 'Keep it under 500 characters.'),
+  zoneId: uuid.optional(),
+});
+
+/** Only a signed-in client (homeowner) of a firm; staff and the operator get 403. */
+const requireClient: RequestHandler = (req, _res, next) => {
+  if (!req.user) return next(errors.unauthenticated());
+  if (req.user.role !== 'client' || !req.ctx.tenantId) return next(errors.forbidden('The portal is for the firm’s clients.'));
+  next();
+};
+
+/** The firm contact the portal shows the household (no internal settings). */
+function firmContactOf(req: Request) {
+  const tenant = req.ctx.tenant;
+  return {
+    name: tenant?.name ?? '',
+    monitoringCenterName: tenant?.monitoringCenterName ?? '',
+    monitoringCenterPhone: tenant?.monitoringCenterPhone ?? '',
+  };
+}
+
+/** Client-safe site fields: no passcode, access notes, monitoring account or contract. */
+function presentPortalSite(site: Site, req: Request) {
+  return {
+    id: site.id,
+    name: site.name,
+    address: {
+      line1: site.addressLine1,
+      line2: site.addressLine2,
+      city: site.city,
+      region: site.region,
+      postalCode: site.postalCode,
+      country: site.country,
+    },
+    timeZone: site.timeZone,
+    firm: firmContactOf(req),
+  };
+}
+
+/** The household's portal: its own sites only, in client terms. */
+export function portalRouter(deps: AppDeps): Router {
+  const router = Router();
+  router.use('/portal', requireClient);
+
+  /** The client's own site; any other site (same firm or not) is a 404. */
+  async function loadOwnSite(req: Request, siteId: string): Promise<Site> {
+    const clientId = req.user?.clientId;
+    if (!clientId) throw errors.notFound('site');
+    const site = await Site.findOne({ where: scoped(req.ctx, { id: siteId, clientId }) });
+    if (!site || !req.ability.can('read', 'Site')) throw errors.notFound('site');
+    return site;
+  }
+
+  /** The site's devices (zones that are not removed) in client terms, with their life. */
+  async function devicesOf(req: Request, site: Site) {
+    const zones = await Zone.findAll({ where: scoped(req.ctx, { siteId: site.id }), order: [['description', 'ASC'], ['id', 'ASC']] });
+    const today = todayIn(site.timeZone, nowOf(deps));
+    const upkeep = upkeepOf(req.ctx.tenant);
+    return zones
+      .filter((zone) => zone.status !== 'removed')
+      .map((zone) => presentPortalDevice(zone, deviceLife(zoneValuesOf(zone), upkeep, today)));
+  }
+
+  router.get('/portal/sites', async (req, res) => {
+    const clientId = req.user?.clientId;
+    const sites = clientId ? await Site.findAll({ where: scoped(req.ctx, { clientId }), order: [['name', 'ASC'], ['id', 'ASC']], limit: 200 }) : [];
+    res.json({ data: sites.map((s) => presentPortalSite(s, req)), page: pageOf(1, 200, sites.length) });
+  });
+
+  router.get('/portal/sites/:siteId', validate({ params: siteParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteParams });
+    const site = await loadOwnSite(req, params.siteId);
+    const coverage = presentCoverage(await coverageForSite(req.ctx, site.id), { audience: 'client' });
+    const now = nowOf(deps);
+    const next = await Job.findOne({
+      where: scoped(req.ctx, { siteId: site.id, state: { [Op.in]: ['scheduled'] }, scheduledStart: { [Op.gte]: now } }),
+      order: [['scheduledStart', 'ASC']],
+    });
+    res.json({
+      data: {
+        site: presentPortalSite(site, req),
+        coverage: { openings: coverage.openings, summary: coverage.summary },
+        lifeSafety: {
+          findings: coverage.findings.filter((f) => f.lifeSafety).map((f) => ({ code: f.code, severity: f.severity, message: f.message })),
+          caution: coverage.caution,
+        },
+        devicesDueSoon: (await devicesOf(req, site)).filter((d) => d.life.state === 'soon' || d.life.state === 'due'),
+        nextVisit: next ? { kind: next.kind, scheduledStart: next.scheduledStart?.toISOString() ?? null } : null,
+        firm: firmContactOf(req),
+      },
+    });
+  });
+
+  router.get('/portal/sites/:siteId/coverage', validate({ params: siteParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteParams });
+    const site = await loadOwnSite(req, params.siteId);
+    res.json({ data: presentCoverage(await coverageForSite(req.ctx, site.id), { audience: 'client' }) });
+  });
+
+  router.get('/portal/sites/:siteId/devices', validate({ params: siteParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteParams });
+    const site = await loadOwnSite(req, params.siteId);
+    res.json({ data: await devicesOf(req, site) });
+  });
+
+  router.get('/portal/sites/:siteId/service', validate({ params: siteParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteParams });
+    const site = await loadOwnSite(req, params.siteId);
+    const jobs = await Job.findAll({ where: scoped(req.ctx, { siteId: site.id }), order: [['scheduledStart', 'ASC'], ['createdAt', 'ASC']], limit: 500 });
+    const views = await jobViews(req.ctx, jobs);
+    const upcoming = jobs
+      .filter((j) => j.state === 'requested' || j.state === 'scheduled' || j.state === 'in_progress')
+      .map((j) => presentUpcomingVisit(j, j.technicianId ? (views.userNames.get(j.technicianId) ?? null) : null));
+    const past = jobs
+      .filter((j) => j.state === 'completed' || j.state === 'cancelled')
+      .sort((a, b) => (b.completedAt ?? b.updatedAt).getTime() - (a.completedAt ?? a.updatedAt).getTime())
+      .map((j) => presentPastVisit(j, views.files.get(j.id) ?? []));
+    res.json({ data: { upcoming, past } });
+  });
+
+  router.post('/portal/sites/:siteId/service-requests', validate({ params: siteParams, body: serviceRequestSchema }), async (req, res) => {
+    const { params, body } = inputOf(req, { params: siteParams, body: serviceRequestSchema });
+    const site = await loadOwnSite(req, params.siteId);
+    const job = await inTransaction(req, deps, (ctx) => requestService(ctx, site, body, deps));
+    res.status(201).json({ data: { ...presentUpcomingVisit(job, null), clientNotes: job.clientNotes } });
+  });
+
+  router.get('/portal/sites/:siteId/contacts', validate({ params: siteParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteParams });
+    const site = await loadOwnSite(req, params.siteId);
+    const contacts = await listContacts(req.ctx, site.id);
+    res.json({ data: contacts.map(presentContact) });
+  });
+
+  router.put('/portal/sites/:siteId/contacts', validate({ params: siteParams, body: contactListSchema }), async (req, res) => {
+    const { params, body } = inputOf(req, { params: siteParams, body: contactListSchema });
+    const site = await loadOwnSite(req, params.siteId);
+    const contacts = await inTransaction(req, deps, (ctx) => replaceContacts(ctx, site, body));
+    res.json({ data: contacts.map(presentContact) });
+  });
+
+  return router;
+}

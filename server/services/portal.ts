@@ -1,0 +1,87 @@
+/**
+ * The household's side of the portal (issue 6): a service request from a client becomes a
+ * `requested` job of the firm, and every active coordinator hears about it by e-mail.
+ */
+import { Op } from 'sequelize';
+import { type Ctx, scoped } from '../context';
+import type { AppDeps } from '../deps';
+import { errors } from '../errors';
+import { Job } from '../models/Job';
+import type { Site } from '../models/Site';
+import { User } from '../models/User';
+import { Zone } from '../models/Zone';
+import { recordAudit } from './audit-recorder';
+import { checklistFor } from './jobs';
+
+export interface ServiceRequestInput {
+  description: string;
+  preferredTimes: string;
+  zoneId?: string | undefined;
+}
+
+function summaryOf(description: string): string {
+  const firstLine = description.trim().split(/\r?\n/)[0] ?? '';
+  return firstLine.length > 200 ? `${firstLine.slice(0, 197)}…` : firstLine;
+}
+
+export async function requestService(
+  ctx: Ctx,
+  site: Site,
+  input: ServiceRequestInput,
+  deps: Pick<AppDeps, 'mailer' | 'appUrl'>,
+): Promise<Job> {
+  const options = { transaction: ctx.transaction ?? null };
+  let zone: Zone | null = null;
+  if (input.zoneId) {
+    zone = await Zone.findOne({ where: scoped(ctx, { id: input.zoneId, siteId: site.id }), ...options });
+    if (!zone) throw errors.validation('zoneId: not a device of this site.', { zoneId: 'Not a device of this site.' });
+  }
+  const notes = [input.description.trim(), `Preferred times: ${input.preferredTimes.trim()}`];
+  if (zone) notes.push(`Device: ${zone.description}`);
+  const job = await Job.create(
+    {
+      tenantId: site.tenantId,
+      siteId: site.id,
+      kind: 'service_call',
+      state: 'requested',
+      scheduledStart: null,
+      scheduledEnd: null,
+      technicianId: null,
+      summary: summaryOf(input.description),
+      clientNotes: notes.join('\n\n'),
+      internalNotes: '',
+      parts: [],
+      checklist: checklistFor(ctx.tenant, 'service_call'),
+      touchedZoneIds: zone ? [zone.id] : [],
+      requestedByClient: true,
+    },
+    options,
+  );
+  await recordAudit(ctx, { action: 'job.requested_by_client', subjectType: 'Job', subjectId: job.id, details: { siteId: site.id } });
+
+  const coordinators = await User.findAll({
+    where: scoped(ctx, { role: 'coordinator', deactivatedAt: { [Op.is]: null } }),
+    ...options,
+  });
+  const who = ctx.user?.name ?? 'A client';
+  const subject = `Service request from ${who} — ${site.name}`;
+  const link = `${deps.appUrl}/jobs/${job.id}`;
+  for (const coordinator of coordinators) {
+    const lines = [
+      `${who} asked for a service visit at ${site.name}.`,
+      `What they wrote: ${input.description.trim()}`,
+      `Preferred times: ${input.preferredTimes.trim()}`,
+    ];
+    await deps.mailer.send({
+      to: coordinator.email,
+      subject,
+      text: `${lines.join('\n\n')}\n\nOpen the job: ${link}\n`,
+      html: `${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}<p><a href="${escapeHtml(link)}">Open the job</a></p>`,
+    });
+  }
+  return job;
+}
+
+function escapeHtml(value: string): string {
+  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
+}
