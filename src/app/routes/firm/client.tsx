@@ -17,6 +17,7 @@ import { useAppAbility } from '@/lib/ability';
 import { ApiError } from '@/lib/api-client';
 import { clientQuery, useDeleteClient } from '@/features/clients/api/clients-queries';
 import { ClientFormDialog } from '@/features/clients/components/client-form-dialog';
+import { PortalInvitation } from '@/features/clients/components/portal-invitation';
 import { siteListQuery } from '@/features/sites/api/sites-queries';
 
 export function loader(queryClient: QueryClient, { params }: LoaderFunctionArgs) {
@@ -86,7 +87,10 @@ export default function ClientPage() {
             <ul className="space-y-2">
               {sites.data.data.map((site) => (
                 <li key={site.id}>
-                  <Link to={paths.firm.site(site.id)} className="flex items-start gap-3 rounded-md border border-line bg-card p-4 hover:border-brass-600">
+                  <Link
+                    to={paths.firm.site(site.id)}
+                    className="flex items-start gap-3 rounded-md border border-line bg-card p-4 hover:border-brass-600"
+                  >
                     <MapPin className="mt-0.5 size-5 shrink-0 text-brass-600" aria-hidden="true" />
                     <span className="min-w-0">
                       <span className="block font-medium">{site.name}</span>
@@ -95,7 +99,9 @@ export default function ClientPage() {
                         {site.address.line2 ? `, ${site.address.line2}` : ''}, {site.address.city}
                         {site.address.region ? `, ${site.address.region}` : ''} {site.address.postalCode}
                       </span>
-                      {site.monitoringAccount && <span className="mt-1 block font-mono text-xs text-slate-500">Account {site.monitoringAccount}</span>}
+                      {site.monitoringAccount && (
+                        <span className="mt-1 block font-mono text-xs text-slate-500">Account {site.monitoringAccount}</span>
+                      )}
                     </span>
                   </Link>
                 </li>
@@ -103,34 +109,53 @@ export default function ClientPage() {
             </ul>
           )}
         </div>
-        <Card title="Contact">
-          <dl className="space-y-2 text-sm">
-            <div>
-              <dt className="text-slate-500">E-mail</dt>
-              <dd>{client.email ? <a href={`mailto:${client.email}`} className="text-brass-700 underline">{client.email}</a> : '—'}</dd>
-            </div>
-            <div>
-              <dt className="text-slate-500">Phone</dt>
-              <dd>{client.phone ? <a href={`tel:${client.phone}`} className="text-brass-700 underline">{formatPhone(client.phone)}</a> : '—'}</dd>
-            </div>
-            {client.altPhone && (
+        <div className="space-y-6">
+          <Card title="Contact">
+            <dl className="space-y-2 text-sm">
               <div>
-                <dt className="text-slate-500">Other phone</dt>
+                <dt className="text-slate-500">E-mail</dt>
                 <dd>
-                  <a href={`tel:${client.altPhone}`} className="text-brass-700 underline">
-                    {formatPhone(client.altPhone)}
-                  </a>
+                  {client.email ? (
+                    <a href={`mailto:${client.email}`} className="text-brass-700 underline">
+                      {client.email}
+                    </a>
+                  ) : (
+                    '—'
+                  )}
                 </dd>
               </div>
-            )}
-            {client.notes && (
               <div>
-                <dt className="text-slate-500">Internal notes</dt>
-                <dd className="whitespace-pre-line">{client.notes}</dd>
+                <dt className="text-slate-500">Phone</dt>
+                <dd>
+                  {client.phone ? (
+                    <a href={`tel:${client.phone}`} className="text-brass-700 underline">
+                      {formatPhone(client.phone)}
+                    </a>
+                  ) : (
+                    '—'
+                  )}
+                </dd>
               </div>
-            )}
-          </dl>
-        </Card>
+              {client.altPhone && (
+                <div>
+                  <dt className="text-slate-500">Other phone</dt>
+                  <dd>
+                    <a href={`tel:${client.altPhone}`} className="text-brass-700 underline">
+                      {formatPhone(client.altPhone)}
+                    </a>
+                  </dd>
+                </div>
+              )}
+              {client.notes && (
+                <div>
+                  <dt className="text-slate-500">Internal notes</dt>
+                  <dd className="whitespace-pre-line">{client.notes}</dd>
+                </div>
+              )}
+            </dl>
+          </Card>
+          {ability.can('create', 'Invitation') && client.status === 'active' && <PortalInvitation client={client} />}
+        </div>
       </div>
       {canEdit && <ClientFormDialog open={editing} onClose={() => setEditing(false)} client={client} />}
       <Dialog
