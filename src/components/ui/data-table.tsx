@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import {
   flexRender,
   getCoreRowModel,
@@ -144,4 +145,23 @@ export function sortParam(sorting: SortingState): string | undefined {
   const first = sorting[0];
   if (!first) return undefined;
   return `${first.desc ? '-' : ''}${first.id}`;
+}
+
+/**
+ * Sorting and paging state of a server-paged list: a new sort goes back to page 1.
+ * Spread `table` into DataTable; send `sort` and `page` to the list API.
+ */
+export function useServerTable(initialSortId: string) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: initialSortId, desc: false }]);
+  const [page, setPage] = useState(1);
+  const onSortingChange: OnChangeFn<SortingState> = (updater) => {
+    setSorting(updater);
+    setPage(1);
+  };
+  return {
+    sort: sortParam(sorting),
+    page,
+    setPage,
+    table: { sorting, onSortingChange, page, onPageChange: setPage },
+  };
 }

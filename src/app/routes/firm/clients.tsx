@@ -1,13 +1,13 @@
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate } from 'react-router-dom';
-import type { ColumnDef, SortingState } from '@tanstack/react-table';
+import type { ColumnDef } from '@tanstack/react-table';
 import { UserPlus } from 'lucide-react';
 import { formatPhone } from '@domain/phone';
 import { paths } from '@/config/paths';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { DataTable, sortParam } from '@/components/ui/data-table';
+import { DataTable, useServerTable } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Select } from '@/components/ui/input';
 import { PageHeader } from '@/components/ui/page-header';
@@ -24,12 +24,11 @@ export default function ClientsPage() {
   const ability = useAppAbility();
   const navigate = useNavigate();
   const canCreate = ability.can('create', 'Client');
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
-  const [page, setPage] = useState(1);
+  const { sort, page, setPage, table } = useServerTable('name');
   const [q, setQ] = useState('');
   const [status, setStatus] = useState<'active' | 'cancelled' | ''>('active');
   const [creating, setCreating] = useState(false);
-  const list = useQuery(clientListQuery({ page, pageSize: PAGE_SIZE, sort: sortParam(sorting), q: q.trim() || undefined, status: status || undefined }));
+  const list = useQuery(clientListQuery({ page, pageSize: PAGE_SIZE, sort, q: q.trim() || undefined, status: status || undefined }));
 
   const columns = useMemo<ColumnDef<ApiClient, unknown>[]>(
     () => [
@@ -127,15 +126,9 @@ export default function ClientsPage() {
           columns={columns}
           data={list.data.data}
           getRowId={(r) => r.id}
-          sorting={sorting}
-          onSortingChange={(s) => {
-            setSorting(s);
-            setPage(1);
-          }}
-          page={page}
+          {...table}
           pageSize={PAGE_SIZE}
           total={list.data.page.total}
-          onPageChange={setPage}
           busy={list.isPlaceholderData}
         />
       )}

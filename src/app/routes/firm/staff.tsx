@@ -1,11 +1,11 @@
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import type { ColumnDef, SortingState } from '@tanstack/react-table';
+import type { ColumnDef } from '@tanstack/react-table';
 import { UserPlus } from 'lucide-react';
 import { ROLE_LABELS } from '@domain/roles';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { DataTable, sortParam, type ColumnMeta } from '@/components/ui/data-table';
+import { DataTable, useServerTable, type ColumnMeta } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SearchField } from '@/components/ui/search-field';
 import { PageHeader } from '@/components/ui/page-header';
@@ -26,11 +26,10 @@ export default function StaffPage() {
   const ability = useAppAbility();
   const canAdminister = ability.can('administer', 'User');
   const canInvite = ability.can('create', 'Invitation') && canAdminister;
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
-  const [page, setPage] = useState(1);
+  const { sort, page, setPage, table } = useServerTable('name');
   const [q, setQ] = useState('');
   const [inviting, setInviting] = useState(false);
-  const filters = { page, pageSize: PAGE_SIZE, sort: sortParam(sorting), q: q.trim() || undefined };
+  const filters = { page, pageSize: PAGE_SIZE, sort, q: q.trim() || undefined };
   const list = useQuery(staffListQuery(filters));
   const timeZone = tenant?.timeZone;
 
@@ -125,15 +124,9 @@ export default function StaffPage() {
               columns={columns}
               data={list.data.data}
               getRowId={(r) => r.id}
-              sorting={sorting}
-              onSortingChange={(s) => {
-                setSorting(s);
-                setPage(1);
-              }}
-              page={page}
+              {...table}
               pageSize={PAGE_SIZE}
               total={list.data.page.total}
-              onPageChange={setPage}
               busy={list.isPlaceholderData}
             />
           )}

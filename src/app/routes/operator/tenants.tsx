@@ -1,11 +1,11 @@
 import { useMemo, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
-import type { ColumnDef, SortingState } from '@tanstack/react-table';
+import type { ColumnDef } from '@tanstack/react-table';
 import { planByKey } from '@domain/plans';
 import { TENANT_STATES, TENANT_STATE_LABELS, type TenantState } from '@domain/tenant-states';
 import { paths } from '@/config/paths';
-import { DataTable, sortParam, type ColumnMeta } from '@/components/ui/data-table';
+import { DataTable, useServerTable, type ColumnMeta } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Select } from '@/components/ui/input';
 import { SearchField } from '@/components/ui/search-field';
@@ -19,11 +19,10 @@ import type { OperatorTenant } from '@/types/api';
 const PAGE_SIZE = 25;
 
 export default function OperatorTenantsPage() {
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
-  const [page, setPage] = useState(1);
+  const { sort, page, setPage, table } = useServerTable('name');
   const [q, setQ] = useState('');
   const [state, setState] = useState<TenantState | ''>('');
-  const list = useQuery(tenantListQuery({ page, pageSize: PAGE_SIZE, sort: sortParam(sorting), q: q.trim() || undefined, state: state || undefined }));
+  const list = useQuery(tenantListQuery({ page, pageSize: PAGE_SIZE, sort, q: q.trim() || undefined, state: state || undefined }));
 
   const columns = useMemo<ColumnDef<OperatorTenant, unknown>[]>(
     () => [
@@ -106,15 +105,9 @@ export default function OperatorTenantsPage() {
           columns={columns}
           data={list.data.data}
           getRowId={(r) => r.id}
-          sorting={sorting}
-          onSortingChange={(s) => {
-            setSorting(s);
-            setPage(1);
-          }}
-          page={page}
+          {...table}
           pageSize={PAGE_SIZE}
           total={list.data.page.total}
-          onPageChange={setPage}
           busy={list.isPlaceholderData}
         />
       )}
