@@ -12,6 +12,7 @@ import { apiNotFound, errorHandler } from './middlewares/error-handler';
 import { createAttemptLimiter } from './middlewares/rate-limit';
 import { sessionGuard } from './middlewares/session-guard';
 import { clientsRouter } from './routes/clients/router';
+import { publicFirmsRouter } from './routes/public-firms/router';
 import { portalRouter } from './routes/portal/router';
 import { clientInvitationsRouter } from './routes/client-invitations/router';
 import { contactsRouter } from './routes/contacts/router';
@@ -116,6 +117,7 @@ export function createApp(deps: AppDeps): CreatedApp {
 
   app.use('/api', sessionRouter(deps, { passport, csrf, signInLimiter, resetLimiter }));
   app.use('/api', invitationsRouter(deps));
+  app.use('/api', publicFirmsRouter(deps));
   app.use('/api', staffRouter(deps));
   app.use('/api', upkeepSettingsRouter(deps));
   app.use('/api', checklistTemplatesRouter(deps));

@@ -5,6 +5,8 @@ export interface MailAttachment {
   filename: string;
   content: Buffer;
   contentType: string;
+  /** set for an image shown inside the HTML (`<img src="cid:…">`) */
+  cid?: string;
 }
 
 export interface MailMessage {

@@ -1,7 +1,9 @@
 import { DEVICE_TYPE_LABELS, type ZoneType } from '@domain/devices';
 import type { DeviceLife } from '@domain/device-life';
 import { JOB_KIND_LABELS } from '@domain/jobs';
+import { DOCUMENT_KIND_LABELS } from '@domain/schemas/document';
 import type { Document } from '../models/Document';
+import type { Floor } from '../models/Floor';
 import type { Job } from '../models/Job';
 import type { Zone } from '../models/Zone';
 
@@ -51,8 +53,49 @@ export function presentUpcomingVisit(job: Job, technicianName: string | null) {
   };
 }
 
+/** Where the household downloads a document the firm shared with it. */
+export function portalFileUrl(siteId: string, documentId: string): string {
+  return `/api/portal/sites/${siteId}/documents/${documentId}/file`;
+}
+
+/** Where the household sees a floor's plan image; `v` changes with the image. */
+export function portalPlanUrl(siteId: string, floor: Pick<Floor, 'id' | 'planImageId'>): string {
+  return `/api/portal/sites/${siteId}/floors/${floor.id}/plan?v=${encodeURIComponent((floor.planImageId ?? '').slice(0, 8))}`;
+}
+
+/** A floor's plan with the devices the firm pinned on it, in client terms (no serials, no inputs). */
+export function presentPortalPlan(
+  siteId: string,
+  floor: Pick<Floor, 'id' | 'planImageId'>,
+  zones: readonly Pick<Zone, 'id' | 'number' | 'description' | 'deviceType' | 'status' | 'pinFloorId' | 'pinX' | 'pinY'>[],
+) {
+  return {
+    floorId: floor.id,
+    imageUrl: portalPlanUrl(siteId, floor),
+    pins: zones
+      .filter((z) => z.pinFloorId === floor.id && z.status !== 'removed' && z.pinX !== null && z.pinY !== null)
+      .sort((a, b) => a.number - b.number)
+      .map((z) => ({ zoneId: z.id, number: z.number, description: z.description, kind: DEVICE_TYPE_LABELS[z.deviceType] ?? z.deviceType, x: z.pinX!, y: z.pinY! })),
+  };
+}
+
+/** A shared document for the household: what it is, when, and from which visit. */
+export function presentPortalDocument(doc: Document, job: Pick<Job, 'kind' | 'completedAt' | 'scheduledStart'> | undefined) {
+  return {
+    id: doc.id,
+    kind: doc.kind,
+    kindLabel: DOCUMENT_KIND_LABELS[doc.kind] ?? doc.kind,
+    title: doc.title,
+    contentType: doc.contentType,
+    sizeBytes: doc.sizeBytes,
+    createdAt: doc.createdAt.toISOString(),
+    visit: job ? { kindLabel: JOB_KIND_LABELS[job.kind] ?? job.kind, on: (job.completedAt ?? job.scheduledStart)?.toISOString() ?? null } : null,
+    fileUrl: portalFileUrl(doc.siteId, doc.id),
+  };
+}
+
 /** A past visit: what the household was told, shared files and the report; never internal notes. */
-export function presentPastVisit(job: Job, files: readonly Document[]) {
+export function presentPastVisit(job: Job, files: readonly Document[], reportUrl: string | null = null) {
   return {
     id: job.id,
     kind: job.kind,
@@ -64,7 +107,7 @@ export function presentPastVisit(job: Job, files: readonly Document[]) {
     clientNotes: job.clientNotes ?? '',
     files: files
       .filter((doc) => doc.sharedWithClient)
-      .map((doc) => ({ id: doc.id, title: doc.title, contentType: doc.contentType, fileUrl: `/api/documents/${doc.id}/file` })),
-    reportUrl: job.state === 'completed' && job.reportFileId ? `/api/jobs/${job.id}/report.pdf` : null,
+      .map((doc) => ({ id: doc.id, title: doc.title, contentType: doc.contentType, fileUrl: portalFileUrl(doc.siteId, doc.id) })),
+    reportUrl: job.state === 'completed' ? reportUrl : null,
   };
 }

@@ -8,7 +8,9 @@ import { hashPassword } from '../auth/passwords';
 import { hashToken, newToken } from '../auth/tokens';
 import { scoped, type Ctx } from '../context';
 import type { AppDeps } from '../deps';
-import { invitationEmail } from '../emails/templates';
+import { readableAccent } from '@domain/colour';
+import { portalPath } from '@domain/short-name';
+import { invitationEmail, portalInvitationEmail } from '../emails/templates';
 import { errors } from '../errors';
 import { Invitation } from '../models/Invitation';
 import { Tenant } from '../models/Tenant';
@@ -17,10 +19,32 @@ import { recordAudit } from './audit-recorder';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
-type MailDeps = Pick<AppDeps, 'mailer' | 'appUrl'>;
+type MailDeps = Pick<AppDeps, 'mailer' | 'appUrl' | 'files'>;
 
 async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ctx, deps: MailDeps): Promise<void> {
   const tenant = ctx.tenant;
+  if (invitation.role === 'client' && tenant) {
+    // A homeowner's invitation opens the firm's own portal, in the firm's colours, with its logo.
+    const logo =
+      tenant.logoFileId && tenant.logoContentType
+        ? await deps.files
+            .read(tenant.id, tenant.logoFileId)
+            .then((content) => ({ content, contentType: tenant.logoContentType! }))
+            .catch(() => null)
+        : null;
+    await deps.mailer.send(
+      portalInvitationEmail({
+        to: invitation.email,
+        firmName: tenant.name,
+        firmPhone: tenant.monitoringCenterPhone,
+        accent: readableAccent(tenant.accentColor),
+        logo,
+        link: `${deps.appUrl}${portalPath(tenant.shortName)}/invitations/${token}`,
+        expiresAt: invitation.expiresAt,
+      }),
+    );
+    return;
+  }
   await deps.mailer.send(
     invitationEmail({
       to: invitation.email,

@@ -1,4 +1,6 @@
 import { Op } from 'sequelize';
+import { portalPath } from '@domain/short-name';
+import { Tenant } from '../models/Tenant';
 import { LIMITS } from '@domain/limits';
 import { hashPassword } from '../auth/passwords';
 import { hashToken, newToken } from '../auth/tokens';
@@ -23,8 +25,11 @@ export async function requestPasswordReset(email: string, deps: Pick<AppDeps, 'm
     tokenHash,
     expiresAt: new Date(deps.now.getTime() + LIMITS.passwordResetMinutes * MINUTE_MS),
   });
+  // A homeowner resets from (and returns to) their firm's portal.
+  const firm = user.role === 'client' && user.tenantId ? await Tenant.findByPk(user.tenantId) : null;
+  const base = firm ? `${deps.appUrl}${portalPath(firm.shortName)}` : deps.appUrl;
   await deps.mailer.send(
-    passwordResetEmail({ to: user.email, name: user.name, link: `${deps.appUrl}/reset-password/${token}`, minutes: LIMITS.passwordResetMinutes }),
+    passwordResetEmail({ to: user.email, name: user.name, link: `${base}/reset-password/${token}`, minutes: LIMITS.passwordResetMinutes }),
   );
 }
 

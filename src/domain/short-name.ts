@@ -27,3 +27,8 @@ export function uniqueShortName(base: string, taken: (candidate: string) => bool
   }
   throw new Error('No free short name');
 }
+
+/** The public address of a firm's client portal, by its short name: "/p/lanternfield". */
+export function portalPath(shortName: string): string {
+  return `/p/${encodeURIComponent(shortName)}`;
+}

@@ -4,6 +4,9 @@ import { User } from '@server/models/User';
 import { createTestApp, linkFromMail, visitor, type TestApp, type Visitor } from '../support/test-app';
 import { buildClient, buildFirmWithSite, buildFirmWithStaff, buildUser, TEST_PASSWORD } from '../support/factories';
 
+/** The API address of an invitation from the portal link in the e-mail (/p/<firm>/invitations/<token>). */
+const apiPathOf = (link: string) => `/api/invitations/${link.split('/').pop()!}`;
+
 let t: TestApp;
 beforeAll(async () => {
   t = await createTestApp();
@@ -22,7 +25,7 @@ async function signedIn(user: User): Promise<Visitor> {
 }
 
 describe('client invitations', () => {
-  it('a coordinator invites a homeowner; the e-mail names the firm and links to /invitations/<token>', async () => {
+  it('a coordinator invites a homeowner; the e-mail names the firm and links to its portal address', async () => {
     const f = await buildFirmWithSite();
     const email = newEmail();
     const coord = await signedIn(f.coordinator);
@@ -32,7 +35,7 @@ describe('client invitations', () => {
     const mail = [...t.outbox].reverse().find((m) => m.to === email)!;
     expect(mail.subject).toContain(f.firm.name);
     expect(mail.text).toContain(f.firm.name);
-    expect(linkFromMail(t.outbox, email, '/invitations/')).toMatch(/^\/invitations\/[A-Za-z0-9_-]+$/);
+    expect(linkFromMail(t.outbox, email, '/invitations/')).toMatch(new RegExp(`^/p/${f.firm.shortName}/invitations/[A-Za-z0-9_-]+$`));
 
     const list = await coord.get(`/api/clients/${f.client.id}/invitations`);
     expect(list.status).toBe(200);
@@ -48,7 +51,7 @@ describe('client invitations', () => {
     const email = newEmail();
     const owner = await signedIn(f.owner);
     await owner.post(`/api/clients/${f.client.id}/invitations`, { email }).expect(201);
-    const path = `/api${linkFromMail(t.outbox, email, '/invitations/')}`;
+    const path = apiPathOf(linkFromMail(t.outbox, email, '/invitations/'));
     const v = await visitor(t.app);
     const res = await v.post(`${path}/accept`, { name: 'Hana Homeowner', password: NEW_PASSWORD });
     expect(res.status).toBe(201);
@@ -72,12 +75,12 @@ describe('client invitations', () => {
     const email = newEmail();
     const coord = await signedIn(f.coordinator);
     const created = await coord.post(`/api/clients/${f.client.id}/invitations`, { email });
-    const firstPath = `/api${linkFromMail(t.outbox, email, '/invitations/')}`;
+    const firstPath = apiPathOf(linkFromMail(t.outbox, email, '/invitations/'));
     const id = created.body.data.id as string;
 
     const resent = await coord.post(`/api/clients/${f.client.id}/invitations/${id}/resend`);
     expect(resent.status).toBe(200);
-    const secondPath = `/api${linkFromMail(t.outbox, email, '/invitations/')}`;
+    const secondPath = apiPathOf(linkFromMail(t.outbox, email, '/invitations/'));
     expect(secondPath).not.toBe(firstPath);
     expect((await (await visitor(t.app)).get(firstPath)).status).toBe(404);
 

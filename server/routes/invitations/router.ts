@@ -9,6 +9,7 @@ import { presentTenant } from '../../presenters/tenant';
 import { presentUser } from '../../presenters/user';
 import { acceptInvitation, findUsableInvitation } from '../../services/invitations';
 import { nowOf } from '../helpers';
+import { presentPublicFirm } from '../public-firms/router';
 import { signIn } from '../session/router';
 
 /** Public: the invitee previews and accepts with the token from the e-mail. */
@@ -20,7 +21,7 @@ export function invitationsRouter(deps: AppDeps): Router {
     const { invitation, tenant } = await findUsableInvitation(params.token, nowOf(deps));
     res.json({
       data: {
-        firm: { name: tenant.name, accentColor: tenant.accentColor },
+        firm: presentPublicFirm(tenant),
         email: invitation.email,
         role: invitation.role,
         roleLabel: ROLE_LABELS[invitation.role],

@@ -8,20 +8,25 @@ import { scoped } from '../../context';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
 import { inputOf, validate } from '../../middlewares/validate';
+import { Document } from '../../models/Document';
+import { Floor } from '../../models/Floor';
 import { Job } from '../../models/Job';
 import { Site } from '../../models/Site';
 import { Zone } from '../../models/Zone';
-import { presentPastVisit, presentPortalDevice, presentUpcomingVisit } from '../../presenters/portal';
+import { portalFileUrl, presentPastVisit, presentPortalDevice, presentPortalDocument, presentPortalPlan, presentUpcomingVisit } from '../../presenters/portal';
 import { presentContact } from '../../presenters/contact';
 import { presentCoverage } from '../../presenters/premises';
 import { listContacts, replaceContacts } from '../../services/contacts';
 import { coverageForSite } from '../../services/coverage';
 import { jobViews } from '../../services/jobs';
+import { safeFileName } from '../../services/documents';
 import { requestService } from '../../services/portal';
 import { todayIn, upkeepOf, zoneValuesOf } from '../../services/zones';
 import { inTransaction, nowOf, pageOf } from '../helpers';
 
 const siteParams = z.object({ siteId: uuid });
+const documentParams = z.object({ siteId: uuid, documentId: uuid });
+const floorParams = z.object({ siteId: uuid, floorId: uuid });
 const serviceRequestSchema = z.object({
   description: z.string({ error: 'Describe what needs attention.' }).trim().min(1, 'Describe what needs attention.').max(2000, 'Keep it under 2000 characters.'),
   preferredTimes: z.string({ error: 'Say when suits you.' }).trim().min(1, 'Say when suits you.').max(500, 'Keep it under 500 characters.'),
@@ -120,7 +125,53 @@ export function portalRouter(deps: AppDeps): Router {
   router.get('/portal/sites/:siteId/coverage', validate({ params: siteParams }), async (req, res) => {
     const { params } = inputOf(req, { params: siteParams });
     const site = await loadOwnSite(req, params.siteId);
-    res.json({ data: presentCoverage(await coverageForSite(req.ctx, site.id), { audience: 'client' }) });
+    const [coverage, floors, zones] = await Promise.all([
+      coverageForSite(req.ctx, site.id),
+      Floor.findAll({ where: scoped(req.ctx, { siteId: site.id }), attributes: ['id', 'planImageId'] }),
+      Zone.findAll({ where: scoped(req.ctx, { siteId: site.id }), attributes: ['id', 'number', 'description', 'deviceType', 'status', 'pinFloorId', 'pinX', 'pinY'] }),
+    ]);
+    const plans = floors.filter((f) => f.planImageId).map((floor) => presentPortalPlan(site.id, floor, zones));
+    res.json({ data: { ...presentCoverage(coverage, { audience: 'client' }), plans } });
+  });
+
+  router.get('/portal/sites/:siteId/floors/:floorId/plan', validate({ params: floorParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: floorParams });
+    const site = await loadOwnSite(req, params.siteId);
+    const floor = await Floor.findOne({ where: scoped(req.ctx, { id: params.floorId, siteId: site.id }) });
+    if (!floor?.planImageId || !floor.planImageContentType) throw errors.notFound('floor plan');
+    const data = await deps.files.read(floor.tenantId, floor.planImageId);
+    res.set('Content-Type', floor.planImageContentType);
+    res.set('X-Content-Type-Options', 'nosniff');
+    res.set('Cache-Control', 'private, max-age=3600');
+    res.send(data);
+  });
+
+  /** The documents the firm shared with the household: site documents, job files and completion reports. */
+  router.get('/portal/sites/:siteId/documents', validate({ params: siteParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteParams });
+    const site = await loadOwnSite(req, params.siteId);
+    const docs = await Document.findAll({
+      where: scoped(req.ctx, { siteId: site.id, sharedWithClient: true }),
+      order: [['createdAt', 'DESC'], ['id', 'ASC']],
+      limit: 500,
+    });
+    const jobIds = [...new Set(docs.map((d) => d.jobId).filter((id): id is string => Boolean(id)))];
+    const jobs = jobIds.length ? await Job.findAll({ where: scoped(req.ctx, { id: { [Op.in]: jobIds } }), attributes: ['id', 'kind', 'completedAt', 'scheduledStart'] }) : [];
+    const jobById = new Map(jobs.map((j) => [j.id, j]));
+    res.json({ data: docs.map((doc) => presentPortalDocument(doc, doc.jobId ? jobById.get(doc.jobId) : undefined)), page: pageOf(1, 500, docs.length) });
+  });
+
+  router.get('/portal/sites/:siteId/documents/:documentId/file', validate({ params: documentParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: documentParams });
+    const site = await loadOwnSite(req, params.siteId);
+    const doc = await Document.findOne({ where: scoped(req.ctx, { id: params.documentId, siteId: site.id, sharedWithClient: true }) });
+    if (!doc) throw errors.notFound('document');
+    const data = await deps.files.read(doc.tenantId, doc.fileId);
+    res.set('Content-Type', doc.contentType);
+    res.set('X-Content-Type-Options', 'nosniff');
+    res.set('Cache-Control', 'private, no-store');
+    res.attachment(safeFileName(doc.originalName || doc.title, doc.fileId.split('.').pop() ?? 'bin'));
+    res.send(data);
   });
 
   router.get('/portal/sites/:siteId/devices', validate({ params: siteParams }), async (req, res) => {
@@ -134,13 +185,18 @@ export function portalRouter(deps: AppDeps): Router {
     const site = await loadOwnSite(req, params.siteId);
     const jobs = await Job.findAll({ where: scoped(req.ctx, { siteId: site.id }), order: [['scheduledStart', 'ASC'], ['createdAt', 'ASC']], limit: 500 });
     const views = await jobViews(req.ctx, jobs);
+    const reportFileIds = jobs.map((j) => j.reportFileId).filter((id): id is string => Boolean(id));
+    const reportDocs = reportFileIds.length
+      ? await Document.findAll({ where: scoped(req.ctx, { siteId: site.id, sharedWithClient: true, fileId: { [Op.in]: reportFileIds } }), attributes: ['id', 'jobId'] })
+      : [];
+    const reports = new Map(reportDocs.filter((d) => d.jobId).map((d) => [d.jobId!, portalFileUrl(site.id, d.id)]));
     const upcoming = jobs
       .filter((j) => j.state === 'requested' || j.state === 'scheduled' || j.state === 'in_progress')
       .map((j) => presentUpcomingVisit(j, j.technicianId ? (views.userNames.get(j.technicianId) ?? null) : null));
     const past = jobs
       .filter((j) => j.state === 'completed' || j.state === 'cancelled')
       .sort((a, b) => (b.completedAt ?? b.updatedAt).getTime() - (a.completedAt ?? a.updatedAt).getTime())
-      .map((j) => presentPastVisit(j, views.files.get(j.id) ?? []));
+      .map((j) => presentPastVisit(j, views.files.get(j.id) ?? [], reports.get(j.id) ?? null));
     res.json({ data: { upcoming, past } });
   });
 
