@@ -17,6 +17,8 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
   declare stateBeforeSuspension: CreationOptional<TenantState | null>;
   declare timeZone: CreationOptional<string>;
   declare licenceNumber: CreationOptional<string>;
+  /** the firm's office phone, for its clients */
+  declare phone: CreationOptional<string>;
   declare monitoringCenterName: CreationOptional<string>;
   declare monitoringCenterPhone: CreationOptional<string>;
   declare accentColor: CreationOptional<string>;
@@ -43,6 +45,7 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
         stateBeforeSuspension: { type: DataTypes.STRING(20), allowNull: true },
         timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'America/Chicago' },
         licenceNumber: { type: DataTypes.STRING(60), allowNull: false, defaultValue: '' },
+        phone: { type: DataTypes.STRING(40), allowNull: false, defaultValue: '' },
         monitoringCenterName: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
         monitoringCenterPhone: { type: DataTypes.STRING(40), allowNull: false, defaultValue: '' },
         accentColor: { type: DataTypes.STRING(7), allowNull: false, defaultValue: '#8f5c17' },

@@ -11,6 +11,7 @@ export function presentTenant(tenant: Tenant, { audience, now = new Date() }: { 
     accentColor: tenant.accentColor,
     accentColorReadable: readableAccent(tenant.accentColor),
     logoUrl: tenant.logoFileId ? `/api/firm/logo?v=${encodeURIComponent(tenant.logoFileId.slice(0, 8))}` : null,
+    phone: tenant.phone ?? '',
     monitoringCenterName: tenant.monitoringCenterName,
     monitoringCenterPhone: tenant.monitoringCenterPhone,
     timeZone: tenant.timeZone,

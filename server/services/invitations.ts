@@ -36,7 +36,7 @@ async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ct
       portalInvitationEmail({
         to: invitation.email,
         firmName: tenant.name,
-        firmPhone: tenant.monitoringCenterPhone,
+        firmPhone: tenant.phone || tenant.monitoringCenterPhone,
         accent: readableAccent(tenant.accentColor),
         logo,
         link: `${deps.appUrl}${portalPath(tenant.shortName)}/invitations/${token}`,

@@ -120,9 +120,29 @@ export function createAppRouter(queryClient: QueryClient) {
           ],
         },
         {
+          // A firm's public portal pages (sign-in, forgotten password, reset, invitation), in its colours.
+          path: paths.firmPortal.signIn(),
+          lazy: async () => ({ Component: (await import('@/components/layouts/portal-public-layout')).PortalPublicLayout }),
+          children: [
+            { index: true, loader: guarded(signedOutOnly), ...page(() => import('./routes/portal-public/sign-in')) },
+            { path: 'forgot-password', ...page(() => import('./routes/portal-public/forgot-password')) },
+            { path: 'reset-password/:token', ...page(() => import('./routes/portal-public/reset-password')) },
+            { path: 'invitations/:token', ...page(() => import('./routes/portal-public/accept-invitation')) },
+          ],
+        },
+        {
           path: paths.portal.root,
           loader: guarded(clientOnly),
-          ...page(() => import('./routes/portal/home')),
+          lazy: async () => ({ Component: (await import('@/components/layouts/portal-layout')).PortalLayout }),
+          children: [
+            { index: true, ...page(() => import('./routes/portal/home')) },
+            { path: 'sites/:siteId', ...page(() => import('./routes/portal/site')) },
+            { path: 'sites/:siteId/coverage', ...page(() => import('./routes/portal/coverage')) },
+            { path: 'sites/:siteId/devices', ...page(() => import('./routes/portal/devices')) },
+            { path: 'sites/:siteId/service', ...page(() => import('./routes/portal/service')) },
+            { path: 'sites/:siteId/contacts', ...page(() => import('./routes/portal/contacts')) },
+            { path: 'sites/:siteId/documents', ...page(() => import('./routes/portal/documents')) },
+          ],
         },
         { path: '*', ...page(() => import('./routes/not-found')) },
       ],

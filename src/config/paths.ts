@@ -32,6 +32,19 @@ export const paths = {
   },
   portal: {
     root: '/portal',
+    site: (siteId = ':siteId') => `/portal/sites/${siteId}`,
+    coverage: (siteId = ':siteId') => `/portal/sites/${siteId}/coverage`,
+    devices: (siteId = ':siteId') => `/portal/sites/${siteId}/devices`,
+    service: (siteId = ':siteId') => `/portal/sites/${siteId}/service`,
+    contacts: (siteId = ':siteId') => `/portal/sites/${siteId}/contacts`,
+    documents: (siteId = ':siteId') => `/portal/sites/${siteId}/documents`,
+  },
+  /** A firm's public portal pages, by its short name (before the household signs in). */
+  firmPortal: {
+    signIn: (shortName = ':shortName') => `/p/${shortName}`,
+    forgotPassword: (shortName = ':shortName') => `/p/${shortName}/forgot-password`,
+    resetPassword: (shortName = ':shortName', token = ':token') => `/p/${shortName}/reset-password/${token}`,
+    invitation: (shortName = ':shortName', token = ':token') => `/p/${shortName}/invitations/${token}`,
   },
 } as const;
 

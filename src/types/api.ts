@@ -22,6 +22,7 @@ export interface ApiFirm {
   accentColor: string;
   accentColorReadable: string;
   logoUrl: string | null;
+  phone?: string;
   monitoringCenterName: string;
   monitoringCenterPhone: string;
   timeZone: string;
@@ -61,8 +62,19 @@ export interface ApiInvitation {
   createdAt: string;
 }
 
+/** A firm's public portal branding (GET /api/public/firms/:shortName). */
+export interface PublicFirm {
+  name: string;
+  shortName: string;
+  accentColor: string;
+  accentColorReadable: string;
+  logoUrl: string | null;
+  phone: string;
+  monitoringCenterPhone: string;
+}
+
 export interface InvitationPreview {
-  firm: { name: string; accentColor: string };
+  firm: PublicFirm;
   email: string;
   role: Role;
   roleLabel: string;
@@ -465,4 +477,96 @@ export interface ApiHistoryEntry {
   title: string;
   detail: string;
   link: { kind: 'job' | 'zone' | 'panel'; id: string };
+}
+
+// ---- Client portal (client-audience presenters under /api/portal) ----
+
+export interface PortalFirmContact {
+  name: string;
+  phone: string;
+  monitoringCenterName: string;
+  monitoringCenterPhone: string;
+}
+
+export interface PortalSite {
+  id: string;
+  name: string;
+  address: { line1: string; line2: string; city: string; region: string; postalCode: string; country: string };
+  timeZone: string;
+  firm: PortalFirmContact;
+}
+
+export interface PortalDeviceLife {
+  state: 'ok' | 'soon' | 'due';
+  batteryDueOn: string | null;
+  endOfLifeOn: string | null;
+}
+
+export interface PortalDevice {
+  id: string;
+  description: string;
+  kind: string;
+  whenArmed: string;
+  chime: boolean;
+  life: PortalDeviceLife;
+}
+
+export interface PortalSiteSummary {
+  site: PortalSite;
+  coverage: { openings: ApiCoverage['openings']; summary: string };
+  lifeSafety: { findings: { code: string; severity: 'error' | 'warning' | 'info'; message: string }[]; caution: string | null };
+  devicesDueSoon: PortalDevice[];
+  nextVisit: { kind: string; scheduledStart: string | null } | null;
+  firm: PortalFirmContact;
+}
+
+export interface PortalPlan {
+  floorId: string;
+  imageUrl: string;
+  pins: { zoneId: string; number: number; description: string; kind: string; x: number; y: number }[];
+}
+
+export interface PortalCoverage extends ApiCoverage {
+  plans: PortalPlan[];
+}
+
+export interface PortalUpcomingVisit {
+  id: string;
+  kind: string;
+  kindLabel: string;
+  state: 'requested' | 'scheduled' | 'in_progress' | 'completed' | 'cancelled';
+  scheduledStart: string | null;
+  technicianFirstName: string | null;
+  summary: string;
+  requestedByClient: boolean;
+}
+
+export interface PortalPastVisit {
+  id: string;
+  kind: string;
+  kindLabel: string;
+  state: 'completed' | 'cancelled';
+  completedAt: string | null;
+  scheduledStart: string | null;
+  summary: string;
+  clientNotes: string;
+  files: { id: string; title: string; contentType: string; fileUrl: string }[];
+  reportUrl: string | null;
+}
+
+export interface PortalService {
+  upcoming: PortalUpcomingVisit[];
+  past: PortalPastVisit[];
+}
+
+export interface PortalDocument {
+  id: string;
+  kind: string;
+  kindLabel: string;
+  title: string;
+  contentType: string;
+  sizeBytes: number;
+  createdAt: string;
+  visit: { kindLabel: string; on: string | null } | null;
+  fileUrl: string;
 }

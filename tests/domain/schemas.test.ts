@@ -122,6 +122,7 @@ describe('firmSettingsSchema', () => {
     shortName: 'lanternfield-alarm',
     timeZone: 'America/Chicago',
     licenceNumber: 'AL-20419',
+    phone: '+1 (555) 010-2000',
     monitoringCenterName: 'Prairie Monitoring',
     monitoringCenterPhone: '+1 (555) 010-2030',
     accentColor: '#8f5c17',

@@ -8,6 +8,7 @@ import * as m20261201010000 from './20261201010000-create-installed-base';
 import * as m20261201020000 from './20261201020000-create-premises';
 import * as m20261201030000 from './20261201030000-create-jobs';
 import * as m20261201040000 from './20261201040000-client-invitations';
+import * as m20261202000000 from './20261202000000-firm-phone';
 
 export interface Migration {
   name: string;
@@ -21,4 +22,5 @@ export const MIGRATIONS: Migration[] = [
   { name: '20261201020000-create-premises', ...m20261201020000 },
   { name: '20261201030000-create-jobs', ...m20261201030000 },
   { name: '20261201040000-client-invitations', ...m20261201040000 },
+  { name: '20261202000000-firm-phone', ...m20261202000000 },
 ];

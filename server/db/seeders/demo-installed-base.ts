@@ -73,6 +73,8 @@ export interface SeededInstalledBase {
   clients: number;
   sites: number;
   zones: number;
+  /** the first household: its site has the drawn floor plan, so the portal demo shows it */
+  firstClient: { id: string; name: string; email: string } | null;
 }
 
 export async function seedInstalledBase(
@@ -94,6 +96,7 @@ export async function seedInstalledBase(
   const { transaction, today } = options;
   let zoneCount = 0;
   let siteCount = 0;
+  let firstClient: { id: string; name: string; email: string } | null = null;
   const clientCount = 12;
   for (let c = 0; c < clientCount; c++) {
     const last = LAST[(c + options.seed) % LAST.length]!;
@@ -112,6 +115,7 @@ export async function seedInstalledBase(
       },
       { transaction },
     );
+    firstClient ??= { id: client.id, name: client.name, email: client.email };
     const sitesForClient = c === 4 ? 2 : 1;
     for (let s = 0; s < sitesForClient; s++) {
       siteCount++;
@@ -222,5 +226,5 @@ export async function seedInstalledBase(
       });
     }
   }
-  return { clients: clientCount, sites: siteCount, zones: zoneCount };
+  return { clients: clientCount, sites: siteCount, zones: zoneCount, firstClient };
 }

@@ -32,6 +32,7 @@ const FIRMS = [
     timeZone: 'America/Chicago',
     licenceNumber: 'AL-20417',
     monitoringCenterName: 'Brindle County Monitoring',
+    phone: '+1 555 010 4100',
     monitoringCenterPhone: '+1 555 010 4400',
     accentColor: '#2f5d7c',
     staff: [
@@ -51,6 +52,7 @@ const FIRMS = [
     timeZone: 'America/Denver',
     licenceNumber: 'SV-3381',
     monitoringCenterName: 'Vale Watch Center',
+    phone: '+1 555 010 7700',
     monitoringCenterPhone: '+1 555 010 7788',
     accentColor: '#6b3f7a',
     staff: [
@@ -88,6 +90,7 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
           timeZone: firm.timeZone,
           licenceNumber: firm.licenceNumber,
           monitoringCenterName: firm.monitoringCenterName,
+          phone: firm.phone,
           monitoringCenterPhone: firm.monitoringCenterPhone,
           accentColor: firm.accentColor,
           createdAt: created,
@@ -105,7 +108,7 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
         if (person.role === 'technician') technicianIds.push(user.id);
         if (person.role === 'coordinator') coordinatorId = user.id;
       }
-      await seedInstalledBase(tenant.id, {
+      const base = await seedInstalledBase(tenant.id, {
         seed: firm.seed,
         today: now,
         timeZone: firm.timeZone,
@@ -117,6 +120,14 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
         technicianIds,
         coordinatorId,
       });
+      if (base.firstClient) {
+        // The first household signs in to the firm's portal (journey 2 of the demo).
+        const home = await User.create(
+          { tenantId: tenant.id, email: base.firstClient.email, name: base.firstClient.name, role: 'client', clientId: base.firstClient.id, passwordHash },
+          { transaction },
+        );
+        signIns.push({ email: home.email, role: 'client', firm: firm.name });
+      }
       await AuditEvent.create(
         { tenantId: tenant.id, actorId: null, actorRole: null, action: 'firm.created', subjectType: 'Tenant', subjectId: tenant.id, details: { demo: true }, ip: null },
         { transaction },

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { deviceLife } from '@domain/device-life';
 import { contactListSchema } from '@domain/schemas/contact';
 import { uuid } from '@domain/schemas/common';
+import { serviceRequestSchema } from '@domain/schemas/portal';
 import { scoped } from '../../context';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
@@ -27,11 +28,6 @@ import { inTransaction, nowOf, pageOf } from '../helpers';
 const siteParams = z.object({ siteId: uuid });
 const documentParams = z.object({ siteId: uuid, documentId: uuid });
 const floorParams = z.object({ siteId: uuid, floorId: uuid });
-const serviceRequestSchema = z.object({
-  description: z.string({ error: 'Describe what needs attention.' }).trim().min(1, 'Describe what needs attention.').max(2000, 'Keep it under 2000 characters.'),
-  preferredTimes: z.string({ error: 'Say when suits you.' }).trim().min(1, 'Say when suits you.').max(500, 'Keep it under 500 characters.'),
-  zoneId: uuid.optional(),
-});
 
 /** Only a signed-in client (homeowner) of a firm; staff and the operator get 403. */
 const requireClient: RequestHandler = (req, _res, next) => {
@@ -45,6 +41,7 @@ function firmContactOf(req: Request) {
   const tenant = req.ctx.tenant;
   return {
     name: tenant?.name ?? '',
+    phone: tenant?.phone ?? '',
     monitoringCenterName: tenant?.monitoringCenterName ?? '',
     monitoringCenterPhone: tenant?.monitoringCenterPhone ?? '',
   };

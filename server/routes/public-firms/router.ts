@@ -24,6 +24,7 @@ export function presentPublicFirm(tenant: Tenant) {
     accentColor: tenant.accentColor,
     accentColorReadable: readableAccent(tenant.accentColor),
     logoUrl: publicLogoUrl(tenant),
+    phone: tenant.phone ?? '',
     monitoringCenterPhone: tenant.monitoringCenterPhone,
   };
 }

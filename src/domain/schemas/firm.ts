@@ -17,6 +17,7 @@ export const firmSettingsSchema = z.object({
     .max(LIMITS.shortNameMax, `Use at most ${LIMITS.shortNameMax} characters.`)
     .regex(SHORT_NAME_PATTERN, 'Use lowercase letters, digits and single hyphens, like lanternfield-alarm.'),
   timeZone,
+  phone,
   licenceNumber: z.string().trim().max(LIMITS.licenceMax, `Use at most ${LIMITS.licenceMax} characters.`),
   monitoringCenterName: z.string().trim().max(LIMITS.nameMax, `Use at most ${LIMITS.nameMax} characters.`),
   monitoringCenterPhone: phone,

@@ -20,6 +20,11 @@ export const SEVERITY_WORDS: Record<FindingSeverity, { word: string; tone: Badge
   info: { word: 'Note', tone: 'neutral' },
 };
 
+/** A rule's source as people read it: the standard and section, without our own reference-file pointer. */
+export function readableSource(source: string): string {
+  return source.replace(/\s+[—-]\s+references\.md\b.*$/i, '').trim();
+}
+
 function plural(n: number, one: string, many = `${one}s`): string {
   return `${n} ${n === 1 ? one : many}`;
 }
@@ -130,7 +135,7 @@ function FindingGroupItem({ group, lifeSafety }: { group: FindingGroup; lifeSafe
           </li>
         ))}
       </ul>
-      <p className="mt-1.5 text-xs text-slate-500">Source: {group.source}</p>
+      <p className="mt-1.5 text-xs text-slate-500">Source: {readableSource(group.source)}</p>
     </li>
   );
 }
@@ -244,9 +249,11 @@ interface CoverageFloorsProps {
   /** the premises' floors, for their plan images */
   planFloors?: readonly ApiFloor[] | undefined;
   zones?: readonly ApiPremisesZone[] | undefined;
+  /** plans already resolved (the portal gets them with its coverage), by floor id */
+  plans?: ReadonlyMap<string, { src: string; pins: PlanPin[] }> | undefined;
 }
 
-export function CoverageFloors({ coverage, planFloors, zones }: CoverageFloorsProps) {
+export function CoverageFloors({ coverage, planFloors, zones, plans }: CoverageFloorsProps) {
   const panels = new Set((zones ?? []).map((z) => z.panelId)).size;
   return (
     <div className="space-y-6">
@@ -254,17 +261,20 @@ export function CoverageFloors({ coverage, planFloors, zones }: CoverageFloorsPr
         const openings = floor.rooms.flatMap((r) => r.openings);
         const covered = openings.filter((o) => o.protected).length;
         const planFloor = planFloors?.find((f) => f.id === floor.id);
-        const src = planFloor ? planImageSrc(planFloor) : null;
-        const pins: PlanPin[] = (zones ?? [])
-          .filter((z) => z.pin?.floorId === floor.id && z.status !== 'removed')
-          .map((z) => ({
-            zoneId: z.id,
-            number: z.number,
-            description: z.description,
-            panelLabel: panels > 1 ? z.panelLabel : undefined,
-            x: z.pin!.x,
-            y: z.pin!.y,
-          }));
+        const given = plans?.get(floor.id);
+        const src = given ? given.src : planFloor ? planImageSrc(planFloor) : null;
+        const pins: PlanPin[] = given
+          ? given.pins
+          : (zones ?? [])
+              .filter((z) => z.pin?.floorId === floor.id && z.status !== 'removed')
+              .map((z) => ({
+                zoneId: z.id,
+                number: z.number,
+                description: z.description,
+                panelLabel: panels > 1 ? z.panelLabel : undefined,
+                x: z.pin!.x,
+                y: z.pin!.y,
+              }));
         return (
           <section key={floor.id} aria-labelledby={`coverage-floor-${floor.id}`} className="rounded-md border border-line bg-card">
             <header className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-1 border-b border-line px-4 py-3">

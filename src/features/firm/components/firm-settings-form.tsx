@@ -13,7 +13,7 @@ import { applyServerErrors } from '@/lib/form-errors';
 import type { ApiFirm } from '@/types/api';
 import { useUpdateFirm } from '../api/firm-queries';
 
-const FIELDS = ['name', 'shortName', 'timeZone', 'licenceNumber', 'monitoringCenterName', 'monitoringCenterPhone', 'accentColor'] as const;
+const FIELDS = ['name', 'shortName', 'phone', 'timeZone', 'licenceNumber', 'monitoringCenterName', 'monitoringCenterPhone', 'accentColor'] as const;
 
 export function FirmSettingsForm({ firm }: { firm: ApiFirm }) {
   const update = useUpdateFirm();
@@ -29,6 +29,7 @@ export function FirmSettingsForm({ firm }: { firm: ApiFirm }) {
       licenceNumber: firm.licenceNumber ?? '',
       monitoringCenterName: firm.monitoringCenterName,
       monitoringCenterPhone: firm.monitoringCenterPhone,
+      phone: firm.phone ?? '',
       accentColor: firm.accentColor,
     },
   });
@@ -56,6 +57,9 @@ export function FirmSettingsForm({ firm }: { firm: ApiFirm }) {
         <div className="grid gap-4 sm:grid-cols-2">
           <FormField label="Firm name" error={e.name?.message}>
             <Input autoComplete="organization" {...register('name')} />
+          </FormField>
+          <FormField label="Office phone" error={e.phone?.message} hint="Shown to your clients in the portal.">
+            <Input type="tel" inputMode="tel" autoComplete="tel" {...register('phone')} />
           </FormField>
           <FormField label="Licence number" error={e.licenceNumber?.message} hint="Your state or local alarm licence, printed on certificates.">
             <Input {...register('licenceNumber')} />

@@ -1,5 +1,5 @@
-import { useState } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import { useState, type ReactNode } from 'react';
+import { useQuery, type UseMutationResult, type UseQueryResult } from '@tanstack/react-query';
 import { ArrowDown, ArrowUp, Pencil, Plus, Trash2 } from 'lucide-react';
 import { formatPhone } from '@domain/phone';
 import { Button } from '@/components/ui/button';
@@ -9,7 +9,11 @@ import { Input } from '@/components/ui/input';
 import { Skeleton } from '@/components/ui/skeleton';
 import { useToast } from '@/components/ui/toast';
 import { ApiError } from '@/lib/api-client';
+import type { ApiContact } from '@/types/api';
 import { contactsQuery, useReplaceContacts } from '../api/sites-queries';
+
+/** One contact as the list is saved: the order of the list is the calling order. */
+export type ContactRow = Omit<ApiContact, 'id' | 'siteId' | 'position'>;
 
 interface Draft {
   key: number;
@@ -25,6 +29,24 @@ let nextKey = 1;
 export function EmergencyContacts({ siteId, canEdit }: { siteId: string; canEdit: boolean }) {
   const contacts = useQuery(contactsQuery(siteId));
   const replace = useReplaceContacts(siteId);
+  return <EmergencyContactsEditor contacts={contacts} replace={replace} canEdit={canEdit} />;
+}
+
+/** The list and its editor, for any source (the staff site page, the household's portal). */
+export function EmergencyContactsEditor({
+  contacts,
+  replace,
+  canEdit,
+  note,
+  savedMessage = 'Emergency contacts saved.',
+}: {
+  contacts: UseQueryResult<ApiContact[]>;
+  replace: UseMutationResult<ApiContact[], Error, ContactRow[]>;
+  canEdit: boolean;
+  /** shown above the list (the portal says who confirms changes) */
+  note?: ReactNode;
+  savedMessage?: string;
+}) {
   const toast = useToast();
   const [drafts, setDrafts] = useState<Draft[] | null>(null);
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -52,7 +74,7 @@ export function EmergencyContacts({ siteId, canEdit }: { siteId: string; canEdit
       drafts.map(({ name, relation, phone, altPhone }) => ({ name, relation, phone, altPhone })),
       {
         onSuccess: () => {
-          toast.success('Emergency contacts saved.');
+          toast.success(savedMessage);
           setDrafts(null);
         },
         onError: (err) => {
@@ -78,6 +100,7 @@ export function EmergencyContacts({ siteId, canEdit }: { siteId: string; canEdit
         )
       }
     >
+      {note}
       {contacts.isPending ? (
         <Skeleton className="h-16 w-full" />
       ) : contacts.isError ? (

@@ -1,0 +1,104 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useQuery } from '@tanstack/react-query';
+import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
+import { acceptInvitationSchema, type AcceptInvitationInput } from '@domain/schemas/auth';
+import { LIMITS } from '@domain/limits';
+import { paths } from '@/config/paths';
+import { PortalCard, portalLinkClass, usePortalFirm } from '@/components/layouts/portal-public-layout';
+import { Button } from '@/components/ui/button';
+import { FormError, FormField } from '@/components/ui/form-field';
+import { Input } from '@/components/ui/input';
+import { Skeleton } from '@/components/ui/skeleton';
+import { invitationQuery, useAcceptInvitation } from '@/features/auth/api/auth-mutations';
+import { telHref } from '@/features/portal/brand';
+import { applyServerErrors } from '@/lib/form-errors';
+
+/** A homeowner accepts the firm's invitation to its portal and chooses a password. */
+export default function PortalAcceptInvitationPage() {
+  const portalFirm = usePortalFirm();
+  const { token = '' } = useParams();
+  const navigate = useNavigate();
+  const preview = useQuery(invitationQuery(token));
+  const accept = useAcceptInvitation(token);
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, formState } = useForm<AcceptInvitationInput>({
+    resolver: zodResolver(acceptInvitationSchema),
+    defaultValues: { name: '', password: '' },
+  });
+
+  if (preview.isPending) {
+    return (
+      <PortalCard title="Opening your invitation…">
+        <Skeleton className="h-24 w-full" />
+      </PortalCard>
+    );
+  }
+  if (preview.isError) {
+    return (
+      <PortalCard title="This invitation cannot be used">
+        <p className="text-sm">{preview.error.message}</p>
+        <p className="mt-3 text-sm text-slate-500">
+          Invitation links work once and expire after {LIMITS.invitationDays} days. Ask {portalFirm.name} to send you a new link
+          {portalFirm.phone ? (
+            <>
+              {' '}
+              (call{' '}
+              <a href={telHref(portalFirm.phone)} className="font-medium text-brass-700 underline">
+                {portalFirm.phone}
+              </a>
+              )
+            </>
+          ) : null}
+          .
+        </p>
+        <p className="mt-3 text-sm">
+          Already set up your sign-in?{' '}
+          <Link to={paths.firmPortal.signIn(portalFirm.shortName)} className={portalLinkClass}>
+            Sign in
+          </Link>
+        </p>
+      </PortalCard>
+    );
+  }
+  const inv = preview.data;
+  // A staff invitation opened at a portal address belongs on the staff invitation page.
+  if (inv.role !== 'client') return <Navigate to={paths.invitation(token)} replace />;
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    accept.mutate(values, {
+      onSuccess: () => void navigate(paths.portal.root, { replace: true }),
+      onError: (err) => setFormError(applyServerErrors(err, setError, ['name', 'password'])),
+    });
+  });
+  return (
+    <PortalCard
+      title={`Welcome to the ${inv.firm.name} client portal`}
+      intro={
+        <>
+          <p>
+            Here you will see which doors and windows of your home are protected, the devices of your alarm, upkeep that is due and the visits booked.
+          </p>
+          <p className="mt-2">
+            You will sign in with <strong className="text-ink">{inv.email}</strong>.
+          </p>
+        </>
+      }
+    >
+      <form onSubmit={onSubmit} noValidate className="space-y-4">
+        <FormError message={formError} />
+        <FormField label="Your name" error={formState.errors.name?.message}>
+          <Input autoComplete="name" className="min-h-12" {...register('name')} />
+        </FormField>
+        <FormField label="Choose a password" error={formState.errors.password?.message} hint={`At least ${LIMITS.passwordMin} characters.`}>
+          <Input type="password" autoComplete="new-password" className="min-h-12" {...register('password')} />
+        </FormField>
+        <Button type="submit" size="lg" className="w-full" busy={accept.isPending}>
+          Create my sign-in
+        </Button>
+      </form>
+    </PortalCard>
+  );
+}
