@@ -159,10 +159,7 @@ export class Billing {
   }
 
   /** '' clears a field, as in Stripe */
-  updateCustomer(
-    id: string,
-    fields: { email?: string; name?: string; description?: string; phone?: string; metadata?: Metadata },
-  ): CustomerObject {
+  updateCustomer(id: string, fields: { email?: string; name?: string; description?: string; phone?: string; metadata?: Metadata }): CustomerObject {
     const customer = this.store.customer(id);
     if (fields.email !== undefined) customer.email = fields.email || null;
     if (fields.name !== undefined) customer.name = fields.name || null;
@@ -317,6 +314,7 @@ export class Billing {
       periodStart: now,
       periodEnd,
     });
+    subscription.latest_invoice = invoice.id;
 
     session.status = 'complete';
     session.payment_status = trialing ? 'no_payment_required' : 'paid';
@@ -356,7 +354,10 @@ export class Billing {
       const price = this.store.price(changes.price, 'items[0][price]');
       if (!price.active) throw stripeErrors.invalidParam('items[0][price]', `The price ${price.id} is not active.`);
       if (price.currency !== subscription.currency) {
-        throw stripeErrors.invalidParam('items[0][price]', `The price ${price.id} is in ${price.currency}; this subscription bills in ${subscription.currency}.`);
+        throw stripeErrors.invalidParam(
+          'items[0][price]',
+          `The price ${price.id} is in ${price.currency}; this subscription bills in ${subscription.currency}.`,
+        );
       }
       item.price = structuredClone(price);
     }
@@ -377,7 +378,8 @@ export class Billing {
   cancelSubscription(id: string): { subscription: SubscriptionObject; events: EventDraft[] } {
     const subscription = this.store.subscription(id);
     if (subscription.status === 'canceled') throw stripeErrors.invalidRequest(`The subscription ${id} is already canceled.`);
-    this.endSubscription(subscription, this.now());
+    const now = this.now();
+    this.endSubscription(subscription, { canceledAt: now, endedAt: now });
     return { subscription, events: [draft('customer.subscription.deleted', subscription)] };
   }
 
@@ -402,7 +404,13 @@ export class Billing {
       const ended = this.endIfCancelingAtPeriodEnd(subscription);
       if (ended) return ended;
       const { start, end } = this.nextPeriod(subscription);
-      invoice = this.issueInvoice(subscription, { reason: 'subscription_cycle', amount: amountOf(subscription), paid: false, periodStart: start, periodEnd: end });
+      invoice = this.issueInvoice(subscription, {
+        reason: 'subscription_cycle',
+        amount: amountOf(subscription),
+        paid: false,
+        periodStart: start,
+        periodEnd: end,
+      });
       this.setPeriod(subscription, start, end);
       subscription.status = 'past_due';
     }
@@ -421,7 +429,13 @@ export class Billing {
       const ended = this.endIfCancelingAtPeriodEnd(subscription);
       if (ended) return ended;
       const { start, end } = this.nextPeriod(subscription);
-      invoice = this.issueInvoice(subscription, { reason: 'subscription_cycle', amount: amountOf(subscription), paid: true, periodStart: start, periodEnd: end });
+      invoice = this.issueInvoice(subscription, {
+        reason: 'subscription_cycle',
+        amount: amountOf(subscription),
+        paid: true,
+        periodStart: start,
+        periodEnd: end,
+      });
       this.setPeriod(subscription, start, end);
     }
     subscription.status = 'active';
@@ -436,7 +450,13 @@ export class Billing {
     const before = structuredClone(subscription);
     const now = this.now();
     const end = addMonths(now, 1);
-    const invoice = this.issueInvoice(subscription, { reason: 'subscription_cycle', amount: amountOf(subscription), paid: true, periodStart: now, periodEnd: end });
+    const invoice = this.issueInvoice(subscription, {
+      reason: 'subscription_cycle',
+      amount: amountOf(subscription),
+      paid: true,
+      periodStart: now,
+      periodEnd: end,
+    });
     this.setPeriod(subscription, now, end);
     subscription.trial_end = now;
     subscription.billing_cycle_anchor = now;
@@ -495,15 +515,15 @@ export class Billing {
   /** A subscription set to cancel at period end ends instead of renewing. */
   private endIfCancelingAtPeriodEnd(subscription: SubscriptionObject): ControlOutcome | undefined {
     if (!subscription.cancel_at_period_end) return undefined;
-    this.endSubscription(subscription, subscription.current_period_end);
+    const endedAt = subscription.current_period_end;
+    this.endSubscription(subscription, { canceledAt: subscription.canceled_at ?? this.now(), endedAt });
     return { subscription, invoice: null, events: [draft('customer.subscription.deleted', subscription)] };
   }
 
-  private endSubscription(subscription: SubscriptionObject, endedAt: number): void {
+  private endSubscription(subscription: SubscriptionObject, { canceledAt, endedAt }: { canceledAt: number; endedAt: number }): void {
     subscription.status = 'canceled';
-    subscription.canceled_at = subscription.canceled_at ?? this.now();
+    subscription.canceled_at = canceledAt;
     subscription.ended_at = endedAt;
-    subscription.cancel_at = subscription.cancel_at ?? endedAt;
     subscription.cancellation_details.reason = 'cancellation_requested';
   }
 

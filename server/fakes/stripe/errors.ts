@@ -1,5 +1,5 @@
 /** Errors in Stripe's shape: `{ error: { type, code?, param?, message } }` with Stripe's statuses. */
-export type StripeErrorType = 'invalid_request_error' | 'api_error';
+export type StripeErrorType = 'invalid_request_error' | 'idempotency_error' | 'api_error';
 
 export class StripeApiError extends Error {
   readonly status: number;

@@ -46,6 +46,19 @@ export class FormParams {
     this.values = Object.assign({}, ...sources.filter(isRecord)) as Record<string, unknown>;
   }
 
+  /** the top-level parameter names given */
+  names(): string[] {
+    return Object.keys(this.values);
+  }
+
+  /** how many entries a nested list (`items[0][…]`, `items[1][…]`) has */
+  count(name: string): number {
+    const value = this.raw(name);
+    if (Array.isArray(value)) return value.length;
+    if (isRecord(value)) return Object.keys(value).length;
+    return value === undefined ? 0 : 1;
+  }
+
   has(name: string): boolean {
     return this.raw(name) !== undefined;
   }
@@ -108,7 +121,8 @@ export class FormParams {
     if (!isRecord(value)) throw stripeErrors.invalidParam(name, `Invalid hash: ${name} must be a set of key-value pairs.`);
     const out: Metadata = {};
     for (const [key, item] of Object.entries(value)) {
-      if (typeof item !== 'string') throw stripeErrors.invalidParam(`${name}[${key}]`, `Invalid value for ${name}[${key}]: metadata values are strings.`);
+      if (typeof item !== 'string')
+        throw stripeErrors.invalidParam(`${name}[${key}]`, `Invalid value for ${name}[${key}]: metadata values are strings.`);
       out[key] = item;
     }
     return out;

@@ -11,19 +11,7 @@ export function randomChars(length: number, alphabet = ALPHABET): string {
   return out;
 }
 
-export type IdPrefix =
-  | 'cus_'
-  | 'prod_'
-  | 'price_'
-  | 'cs_test_'
-  | 'sub_'
-  | 'si_'
-  | 'in_'
-  | 'il_'
-  | 'bps_'
-  | 'bpc_'
-  | 'evt_'
-  | 'req_';
+export type IdPrefix = 'cus_' | 'prod_' | 'price_' | 'cs_test_' | 'sub_' | 'si_' | 'in_' | 'il_' | 'bps_' | 'bpc_' | 'evt_' | 'req_';
 
 export function newId(prefix: IdPrefix): string {
   return prefix + randomChars(prefix === 'cs_test_' ? 58 : 24);

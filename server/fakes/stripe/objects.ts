@@ -220,13 +220,7 @@ export interface PortalSessionObject {
 }
 
 export type StripeObject =
-  | ProductObject
-  | PriceObject
-  | CustomerObject
-  | SubscriptionObject
-  | InvoiceObject
-  | CheckoutSessionObject
-  | PortalSessionObject;
+  ProductObject | PriceObject | CustomerObject | SubscriptionObject | InvoiceObject | CheckoutSessionObject | PortalSessionObject;
 
 export type EventType =
   | 'customer.subscription.created'
