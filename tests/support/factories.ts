@@ -30,13 +30,18 @@ const hashed = () => (passwordHash ??= hashPassword(TEST_PASSWORD));
 
 const unique = () => crypto.randomUUID().slice(0, 8);
 
-export async function buildFirm(overrides: Partial<{ name: string; state: TenantState }> = {}): Promise<Tenant> {
+/**
+ * A firm on trial. Its trial ends far in the future unless the test says otherwise, so a test
+ * that moves its clock ahead does not also make the firm read-only (billing tests set it).
+ */
+export async function buildFirm(overrides: Partial<{ name: string; state: TenantState; trialEndsAt: Date | null; planKey: string | null }> = {}): Promise<Tenant> {
   const id = unique();
   return Tenant.create({
     name: overrides.name ?? `Test Firm ${id}`,
     shortName: `test-firm-${id}`,
     state: overrides.state ?? 'trialing',
-    trialEndsAt: trialEndsAt(new Date()),
+    trialEndsAt: overrides.trialEndsAt !== undefined ? overrides.trialEndsAt : trialEndsAt(new Date('2100-01-01T00:00:00Z')),
+    planKey: overrides.planKey ?? null,
   });
 }
 

@@ -4,11 +4,11 @@ import { Download } from 'lucide-react';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useSession } from '@/lib/auth';
 import { formatDate } from '@/lib/format';
-import { portalDocumentsQuery } from '@/features/portal/api/portal-queries';
+import { portalDocumentsQuery, portalSitesQuery } from '@/features/portal/api/portal-queries';
 import { PortalTitle } from '@/features/portal/components/portal-parts';
 
 export async function loader(queryClient: QueryClient, { params }: LoaderFunctionArgs) {
-  await queryClient.ensureQueryData(portalDocumentsQuery(params.siteId ?? ''));
+  await Promise.all([queryClient.ensureQueryData(portalDocumentsQuery(params.siteId ?? '')), queryClient.ensureQueryData(portalSitesQuery())]);
   return null;
 }
 
@@ -23,6 +23,8 @@ export default function PortalDocumentsPage() {
   const { siteId = '' } = useParams();
   const { tenant } = useSession();
   const { data } = useSuspenseQuery(portalDocumentsQuery(siteId));
+  const { data: sites } = useSuspenseQuery(portalSitesQuery());
+  const timeZone = sites.find((s) => s.id === siteId)?.timeZone;
   return (
     <>
       <PortalTitle title="Documents" context={`What ${tenant?.name ?? 'your alarm firm'} has shared with you about this home.`} />
@@ -37,7 +39,7 @@ export default function PortalDocumentsPage() {
                   <span className="block font-medium break-words text-ink">{doc.title || doc.kindLabel}</span>
                   <span className="block text-sm text-slate-500">
                     {doc.kindLabel}
-                    {doc.visit ? ` · ${doc.visit.kindLabel}${doc.visit.on ? `, ${formatDate(doc.visit.on)}` : ''}` : ` · ${formatDate(doc.createdAt)}`} · {size(doc.sizeBytes)}
+                    {doc.visit ? ` · ${doc.visit.kindLabel}${doc.visit.on ? `, ${formatDate(doc.visit.on, timeZone)}` : ''}` : ` · ${formatDate(doc.createdAt, timeZone)}`} · {size(doc.sizeBytes)}
                   </span>
                 </span>
                 <span className="flex shrink-0 items-center gap-1 text-sm font-medium text-brass-700">

@@ -12,7 +12,8 @@ import type { PortalUpcomingVisit } from '@/types/api';
 export async function loader(queryClient: QueryClient, { params }: LoaderFunctionArgs) {
   const siteId = params.siteId ?? '';
   void queryClient.prefetchQuery(portalDevicesQuery(siteId));
-  await queryClient.ensureQueryData(portalServiceQuery(siteId));
+  // the site's time zone, so visit times never show in the browser's zone first
+  await Promise.all([queryClient.ensureQueryData(portalServiceQuery(siteId)), queryClient.ensureQueryData(portalSitesQuery())]);
   return null;
 }
 
