@@ -11,6 +11,9 @@ import { createCsrf } from './middlewares/csrf';
 import { apiNotFound, errorHandler } from './middlewares/error-handler';
 import { createAttemptLimiter } from './middlewares/rate-limit';
 import { sessionGuard } from './middlewares/session-guard';
+import { readOnlyGuard } from './middlewares/read-only-guard';
+import { billingRouter } from './routes/billing/router';
+import { stripeWebhookRouter } from './routes/webhooks/router';
 import { clientsRouter } from './routes/clients/router';
 import { publicFirmsRouter } from './routes/public-firms/router';
 import { portalRouter } from './routes/portal/router';
@@ -27,6 +30,8 @@ import { zonesRouter } from './routes/zones/router';
 import { invitationsRouter } from './routes/invitations/router';
 import { jobsRouter } from './routes/jobs/router';
 import { operatorRouter } from './routes/operator/router';
+import { operatorRevenueRouter } from './routes/operator/revenue';
+import { firmBusinessRouter } from './routes/firm/business';
 import { sessionRouter } from './routes/session/router';
 import { staffRouter } from './routes/staff/router';
 
@@ -93,6 +98,8 @@ export function createApp(deps: AppDeps): CreatedApp {
   const passport = createPassport();
   const csrf = createCsrf(deps.sessionSecret, deps.secureCookies);
 
+  // Stripe signs the raw body and sends no session: its endpoint comes before the JSON parser and CSRF.
+  app.use('/api', stripeWebhookRouter(deps));
   app.use('/api', express.json({ limit: '200kb' }));
   app.use('/api', cookieParser());
   app.use(
@@ -111,6 +118,7 @@ export function createApp(deps: AppDeps): CreatedApp {
   // Order on a state-changing request: CSRF, then authentication, then authorization.
   app.use('/api', csrf.protect);
   app.use('/api', sessionGuard);
+  app.use('/api', readOnlyGuard(deps));
 
   const signInLimiter = createAttemptLimiter(deps.rateLimits?.signIn ?? { limit: 10, windowMs: 15 * 60 * 1000 });
   const resetLimiter = createAttemptLimiter(deps.rateLimits?.passwordReset ?? { limit: 5, windowMs: 15 * 60 * 1000 });
@@ -122,7 +130,10 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use('/api', upkeepSettingsRouter(deps));
   app.use('/api', checklistTemplatesRouter(deps));
   app.use('/api', firmRouter(deps));
+  app.use('/api', billingRouter(deps));
+  app.use('/api', firmBusinessRouter(deps));
   app.use('/api', operatorRouter(deps));
+  app.use('/api', operatorRevenueRouter(deps));
   app.use('/api', clientInvitationsRouter(deps));
   app.use('/api', portalRouter(deps));
   app.use('/api', clientsRouter(deps));

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import type { BillingConfig } from './billing/config';
 import type { SecretBox } from './crypto/secret-box';
 import type { Mailer } from './emails/mailer';
 import type { Logger } from './logger';
@@ -18,4 +19,6 @@ export interface AppDeps {
   serveClient?: string | undefined;
   rateLimits?: { signIn?: { limit: number; windowMs: number }; passwordReset?: { limit: number; windowMs: number } };
   now?: () => Date;
+  /** Stripe (or the local stand-in); without it the billing routes answer 503 */
+  billing?: BillingConfig | undefined;
 }

@@ -37,4 +37,10 @@ export const errors = {
   rateLimited: (message = 'Too many attempts. Wait a few minutes and try again.') => make('rate_limited', message),
   tooLarge: (message: string) => make('too_large', message),
   unsupportedType: (message: string) => make('unsupported_type', message),
+  /** the firm may read but not change anything until billing is sorted out (402) */
+  readOnly: (message: string) => make('read_only', message),
+  /** adding one more would pass the plan's limit (402) */
+  planLimitReached: (message: string, fields?: Record<string, string>) => make('plan_limit_reached', message, fields),
+  /** a hosted service Mullion needs is not set up or not answering */
+  serviceUnavailable: (message: string) => new HttpError(503, 'service_unavailable', message),
 };

@@ -6,6 +6,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createApp } from './app';
+import type { BillingConfig } from './billing/config';
 import { createSecretBox } from './crypto/secret-box';
 import type { Env } from './config/env';
 import { migrate } from './db/migrator';
@@ -33,7 +34,7 @@ export async function openDatabase(env: Env): Promise<Sequelize> {
 
 export async function startServer(
   env: Env,
-  options: { mailer?: Mailer; serveClient?: string; sequelize?: Sequelize; host?: string } = {},
+  options: { mailer?: Mailer; serveClient?: string; sequelize?: Sequelize; host?: string; billing?: BillingConfig } = {},
 ): Promise<RunningServer> {
   const logger = createLogger(env.logLevel);
   const sequelize = options.sequelize ?? (await openDatabase(env));
@@ -49,6 +50,7 @@ export async function startServer(
     secrets: createSecretBox(env.dataEncryptionKey),
     secureCookies: env.isProduction,
     serveClient: options.serveClient,
+    billing: options.billing,
   });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(env.port, options.host ?? '0.0.0.0', (err?: Error) => (err ? reject(err) : resolve(s)));

@@ -2,12 +2,14 @@
  * The production entry (the container's command): reads and checks the configuration, opens
  * the database and applies migrations, and serves the API and the built client from dist/.
  * Unlike `npm start` it starts no stand-ins and never seeds demo data: mail goes out through
- * SMTP_URL (required), and the first operator comes from `npm run operator:create`.
+ * SMTP_URL (required), payments through Stripe when STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET
+ * are set, and the first operator comes from `npm run operator:create`.
  */
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readEnv, type Env } from './config/env';
+import { billingFromEnv } from './billing/setup';
 import { openDatabase, startServer } from './index';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -33,7 +35,9 @@ async function main(): Promise<void> {
   if (!fs.existsSync(path.join(dist, 'index.html'))) throw new Error('dist/ holds no built client: run `npm run build` first.');
 
   const sequelize = await openDatabase(env);
-  const running = await startServer(env, { sequelize, serveClient: dist });
+  // Payments only with real Stripe keys; without them the billing pages say payments are not set up.
+  const billing = await billingFromEnv(env);
+  const running = await startServer(env, { sequelize, serveClient: dist, billing });
   running.logger.info('Mullion is serving', { url: env.appUrl, port: running.port, environment: env.nodeEnv });
 
   let stopping = false;

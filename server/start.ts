@@ -11,6 +11,8 @@ import { createSecretBox } from './crypto/secret-box';
 import { buildClient, clientBuildIsStale } from './client-build';
 import { DEMO_PASSWORD, isDatabaseEmpty, seedDemo, type DemoSignIn } from './db/seeders/demo';
 import { startMailCatcher, type MailCatcher } from './fakes/mail-catcher';
+import { billingFromEnv, startLocalBilling } from './billing/setup';
+import type { StripeStandIn } from './fakes/stripe/index';
 import { openDatabase, startServer } from './index';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -34,13 +36,23 @@ async function main(): Promise<void> {
   let demo: DemoSignIn[] = [];
   if (!env.isProduction && (await isDatabaseEmpty())) demo = await seedDemo(sequelize, { secrets: createSecretBox(env.dataEncryptionKey), files: new TenantFiles(path.resolve(env.tenantsDir)) });
 
-  const running = await startServer(env, { sequelize, serveClient: path.join(root, 'dist') });
+  let standIn: StripeStandIn | undefined;
+  let billing = await billingFromEnv(env);
+  if (!billing) {
+    const local = await startLocalBilling({ appUrl: env.appUrl });
+    billing = local.billing;
+    standIn = local.standIn;
+  }
+
+  const running = await startServer(env, { sequelize, serveClient: path.join(root, 'dist'), billing });
 
   const lines = [
     '',
     `Mullion is running at ${env.appUrl}`,
     mail ? `Mail catcher (maildev): ${mail.webUrl} (SMTP ${mail.smtpUrl})` : `Mail goes out through SMTP_URL.`,
-    env.stripeSecretKey ? 'Payments: Stripe with STRIPE_SECRET_KEY.' : 'Payments: not configured yet (the billing stand-in arrives with subscriptions).',
+    standIn
+      ? `Payments: local Stripe stand-in at ${standIn.url} (test card 4242 4242 4242 4242; 4000 0000 0000 0002 declines)`
+      : 'Payments: Stripe with STRIPE_SECRET_KEY; webhooks to /api/webhooks/stripe.',
   ];
   if (demo.length > 0) {
     lines.push('', `Demo sign-ins (password for all: ${DEMO_PASSWORD}):`);
@@ -57,6 +69,7 @@ async function main(): Promise<void> {
     console.log('Stopping…');
     await running.close();
     await mail?.close();
+    await standIn?.close();
     process.exit(0);
   };
   process.on('SIGINT', () => void stop());

@@ -25,6 +25,8 @@ const schema = z
     MAIL_FROM: z.string().default('Mullion <no-reply@mullion.localhost>'),
     STRIPE_SECRET_KEY: z.string().optional(),
     STRIPE_WEBHOOK_SECRET: z.string().optional(),
+    /** the Stripe API base, only to point the SDK at a stand-in in another container (http://stripe:12111) */
+    STRIPE_API_BASE: z.url().optional(),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
   })
   .superRefine((v, ctx) => {
@@ -50,6 +52,7 @@ export interface Env {
   mailFrom: string;
   stripeSecretKey: string | undefined;
   stripeWebhookSecret: string | undefined;
+  stripeApiBase: string | undefined;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
 }
 
@@ -74,6 +77,7 @@ export function readEnv(source: Record<string, string | undefined> = process.env
     mailFrom: v.MAIL_FROM,
     stripeSecretKey: v.STRIPE_SECRET_KEY || undefined,
     stripeWebhookSecret: v.STRIPE_WEBHOOK_SECRET || undefined,
+    stripeApiBase: v.STRIPE_API_BASE || undefined,
     logLevel: v.LOG_LEVEL,
   };
 }

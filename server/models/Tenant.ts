@@ -28,6 +28,14 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
   declare upkeepSettings: CreationOptional<Record<string, unknown> | null>;
   /** the firm's checklist per job kind; null = defaults */
   declare checklistTemplates: CreationOptional<Record<string, string[]> | null>;
+  /** Stripe: the firm's customer and subscription, as webhooks last told us */
+  declare stripeCustomerId: CreationOptional<string | null>;
+  declare stripeSubscriptionId: CreationOptional<string | null>;
+  declare subscriptionStatus: CreationOptional<string | null>;
+  /** when the firm went past due; the grace period counts from here */
+  declare pastDueSince: CreationOptional<Date | null>;
+  declare currentPeriodEnd: CreationOptional<Date | null>;
+  declare cancelAtPeriodEnd: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -53,6 +61,12 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
         logoContentType: { type: DataTypes.STRING(40), allowNull: true },
         upkeepSettings: { type: DataTypes.JSON, allowNull: true },
         checklistTemplates: { type: DataTypes.JSON, allowNull: true },
+        stripeCustomerId: { type: DataTypes.STRING(80), allowNull: true },
+        stripeSubscriptionId: { type: DataTypes.STRING(80), allowNull: true },
+        subscriptionStatus: { type: DataTypes.STRING(30), allowNull: true },
+        pastDueSince: { type: DataTypes.DATE, allowNull: true },
+        currentPeriodEnd: { type: DataTypes.DATE, allowNull: true },
+        cancelAtPeriodEnd: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -13,17 +13,19 @@ import { Room } from './Room';
 import { Session } from './Session';
 import { Site } from './Site';
 import { Tenant } from './Tenant';
+import { StripeEvent } from './StripeEvent';
+import { SubscriptionChange } from './SubscriptionChange';
 import { User } from './User';
 import { WalkTest } from './WalkTest';
 import { Zone } from './Zone';
 import { ZoneChange } from './ZoneChange';
 import { guardIncludes } from './base/tenant-guard';
 
-export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, WalkTest, Zone, ZoneChange };
+export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, WalkTest, Zone, ZoneChange, StripeEvent, SubscriptionChange };
 
 /** Binds every model to this database and wires the associations. */
 export function initModels(sequelize: Sequelize): void {
-  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest];
+  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest, StripeEvent, SubscriptionChange];
   for (const model of models) model.initModel(sequelize);
 
   Tenant.hasMany(User, { foreignKey: 'tenantId', as: 'users' });

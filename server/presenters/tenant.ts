@@ -1,6 +1,7 @@
 import { readableAccent } from '@domain/colour';
 import { trialDaysLeft } from '@domain/tenant-states';
 import type { Tenant } from '../models/Tenant';
+import { readOnlyOf } from './billing';
 
 /** The firm as its own people see it. `audience: 'client'` keeps only branding and contact. */
 export function presentTenant(tenant: Tenant, { audience, now = new Date() }: { audience: 'staff' | 'client'; now?: Date }) {
@@ -24,6 +25,8 @@ export function presentTenant(tenant: Tenant, { audience, now = new Date() }: { 
     planKey: tenant.planKey,
     trialEndsAt: tenant.trialEndsAt?.toISOString() ?? null,
     trialDaysLeft: tenant.state === 'trialing' && tenant.trialEndsAt ? trialDaysLeft(tenant.trialEndsAt, now) : null,
+    /** why the firm may only read right now (trial over, past due beyond grace, cancelled), or null */
+    readOnly: readOnlyOf(tenant, now),
     createdAt: tenant.createdAt.toISOString(),
   };
 }

@@ -16,6 +16,7 @@ import { Invitation } from '../models/Invitation';
 import { Tenant } from '../models/Tenant';
 import { User } from '../models/User';
 import { recordAudit } from './audit-recorder';
+import { assertWithinPlan } from './plan-limits';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -69,6 +70,11 @@ export async function inviteToFirm(
 ): Promise<Invitation> {
   const taken = await User.count({ where: { email: input.email }, crossTenant: true, transaction: ctx.transaction });
   if (taken > 0) throw errors.emailTaken();
+  // A staff invitation holds a seat from the moment it is sent (one replacing a pending one to the same address does not add one).
+  if (input.role !== 'client') {
+    const replacing = await Invitation.count({ where: scoped(ctx, { email: input.email, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: deps.now } }), transaction: ctx.transaction });
+    if (replacing === 0) await assertWithinPlan(ctx, 'seat', deps.now);
+  }
   const { token, tokenHash } = newToken();
   await Invitation.update(
     { revokedAt: deps.now },

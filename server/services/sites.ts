@@ -7,6 +7,7 @@ import { Document } from '../models/Document';
 import { Floor } from '../models/Floor';
 import { Site } from '../models/Site';
 import { recordAudit } from './audit-recorder';
+import { assertWithinPlan } from './plan-limits';
 
 type SiteColumn = keyof ReturnType<Site['get']>;
 
@@ -61,8 +62,10 @@ function sealsSame(secrets: SecretBox, sealed: string | null | undefined, passco
 }
 
 /** Creates a site for one of the firm's clients; a passcode given is sealed before it is stored. */
-export async function createSite(ctx: Ctx, input: SiteValues, secrets: SecretBox): Promise<Site> {
-  await requireClientOfFirm(ctx, input.clientId);
+export async function createSite(ctx: Ctx, input: SiteValues, secrets: SecretBox, now: Date = new Date()): Promise<Site> {
+  const client = await requireClientOfFirm(ctx, input.clientId);
+  // A cancelled client's sites do not count against the plan, so adding one needs no room.
+  if (client.status !== 'cancelled') await assertWithinPlan(ctx, 'site', now);
   const site = await Site.create(
     {
       tenantId: scoped(ctx).tenantId,

@@ -3,6 +3,7 @@ import type { Ctx } from '../context';
 import { errors } from '../errors';
 import type { User } from '../models/User';
 import { recordAudit } from './audit-recorder';
+import { assertWithinPlan } from './plan-limits';
 
 /**
  * Changes a colleague's role or active state. The owner cannot change their own role or
@@ -19,6 +20,7 @@ export async function updateStaffMember(ctx: Ctx, member: User, input: StaffUpda
     );
   }
   const before = { role: member.role, active: !member.deactivatedAt };
+  if (input.active === true && !before.active) await assertWithinPlan(ctx, 'seat', now);
   if (input.role !== undefined) member.role = input.role;
   if (input.active !== undefined) member.deactivatedAt = input.active ? null : (member.deactivatedAt ?? now);
   await member.save({ transaction: ctx.transaction });

@@ -197,7 +197,7 @@ function countOf(count: number, one: string, many: string): string {
 }
 
 const RESOURCE_WORDS: Record<LimitedResource, { one: string; many: string; freeOne: string }> = {
-  activeSites: { one: 'active site', many: 'active sites', freeOne: 'archive a site you no longer look after' },
+  activeSites: { one: 'active site', many: 'active sites', freeOne: 'mark a client who has left as cancelled (their sites stop counting)' },
   staffSeats: { one: 'staff seat', many: 'staff seats', freeOne: 'deactivate a staff member who has left' },
 };
 

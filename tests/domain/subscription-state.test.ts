@@ -177,7 +177,7 @@ describe('limitCheck', () => {
       limit: 'activeSites',
       max: 75,
       message:
-        'Your Bench plan allows 75 active sites and you have 75. Move to a larger plan on the Billing page, or archive a site you no longer look after.',
+        'Your Bench plan allows 75 active sites and you have 75. Move to a larger plan on the Billing page, or mark a client who has left as cancelled (their sites stop counting).',
     });
   });
 
@@ -203,7 +203,7 @@ describe('limitCheck', () => {
 
   it('does not suggest a larger plan when none allows more, and groups thousands', () => {
     expect(limitCheck(plan('fleet'), { activeSites: 2000, staffSeats: 0 }, 'site')?.message).toBe(
-      'Your Fleet plan allows 2,000 active sites and you have 2,000. That is the most any plan allows; archive a site you no longer look after to add another.',
+      'Your Fleet plan allows 2,000 active sites and you have 2,000. That is the most any plan allows; mark a client who has left as cancelled (their sites stop counting) to add another.',
     );
     expect(limitCheck(plan('crew'), { activeSites: 400, staffSeats: 0 }, 'site')?.message).toContain('Move to a larger plan on the Billing page');
   });

@@ -17,6 +17,7 @@ import { seedDemo } from '../../server/db/seeders/demo';
 import { TenantFiles } from '../../server/storage/tenant-files';
 import { startMailCatcher } from '../../server/fakes/mail-catcher';
 import { openDatabase, startServer } from '../../server/index';
+import { startLocalBilling } from '../../server/billing/setup';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -26,6 +27,8 @@ declare module 'vitest' {
     mailUrl: string;
     /** the Chromium binary the browser helpers launch */
     chromiumPath: string;
+    /** the local Stripe stand-in (hosted checkout, billing portal, test controls) */
+    stripeUrl: string;
   }
 }
 
@@ -113,7 +116,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     const clientDir = path.join(tmp, 'client');
     await buildClientInto(clientDir);
 
-    const [appPort, smtpPort, webPort] = (await freePorts(3)) as [number, number, number];
+    const [appPort, smtpPort, webPort, stripePort] = (await freePorts(4)) as [number, number, number, number];
     const mail = await startMailCatcher({ smtpPort, webPort });
     cleanups.push(() => mail.close());
 
@@ -135,12 +138,15 @@ export default async function setup(project: TestProject): Promise<() => Promise
     cleanups.push(() => stopApp());
     await seedDemo(sequelize, { secrets: createSecretBox(env.dataEncryptionKey), files: new TenantFiles(path.resolve(env.tenantsDir)) });
 
-    const running = await startServer(env, { sequelize, serveClient: clientDir, host: '127.0.0.1' });
+    const local = await startLocalBilling({ appUrl: baseUrl, port: stripePort });
+    cleanups.push(() => local.standIn.close());
+    const running = await startServer(env, { sequelize, serveClient: clientDir, host: '127.0.0.1', billing: local.billing });
     stopApp = () => running.close();
 
     project.provide('baseUrl', baseUrl);
     project.provide('mailUrl', mail.webUrl);
     project.provide('chromiumPath', chromiumPath);
+    project.provide('stripeUrl', local.standIn.url);
   } catch (err) {
     await teardown();
     throw err;

@@ -52,7 +52,7 @@ describe('GET /api/invitations/:token (public preview)', () => {
     });
     expect(new Date(res.body.data.expiresAt as string).getTime()).toBeGreaterThan(Date.now() + 6 * DAY_MS);
     // a preview says nothing more about the firm than its public portal branding
-    expect(Object.keys(res.body.data.firm as object).sort()).toEqual(['accentColor', 'accentColorReadable', 'logoUrl', 'monitoringCenterPhone', 'name', 'shortName']);
+    expect(Object.keys(res.body.data.firm as object).sort()).toEqual(['accentColor', 'accentColorReadable', 'logoUrl', 'monitoringCenterPhone', 'name', 'phone', 'shortName']);
   });
 
   it('answers 404 for a well-formed token that was never issued', async () => {

@@ -135,6 +135,7 @@ describe('public portal address and branded e-mails', () => {
       accentColor: '#f5c518',
       accentColorReadable: expect.stringMatching(/^#[0-9a-f]{6}$/),
       logoUrl: null,
+      phone: '',
       monitoringCenterPhone: '+1 312 555 0142',
     });
     expect(res.body.data.accentColorReadable).not.toBe('#f5c518'); // a pale yellow is darkened for white text

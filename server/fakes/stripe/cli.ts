@@ -8,7 +8,15 @@ import { DEFAULT_PLAN_PRICES, startStripeStandIn } from './index';
 async function main(): Promise<void> {
   const webhookSecret = process.env.STRIPE_WEBHOOK_SECRET || 'whsec_mullion_local_stand_in';
   const webhookUrl = process.env.WEBHOOK_URL || null;
-  const standIn = await startStripeStandIn({ port: 12111, webhookSecret, webhookUrl, prices: DEFAULT_PLAN_PRICES });
+  // In a container: STAND_IN_HOST=0.0.0.0 and STAND_IN_PUBLIC_URL=http://localhost:12111 (what the browser opens).
+  const standIn = await startStripeStandIn({
+    port: 12111,
+    host: process.env.STAND_IN_HOST || '127.0.0.1',
+    ...(process.env.STAND_IN_PUBLIC_URL ? { publicUrl: process.env.STAND_IN_PUBLIC_URL } : {}),
+    webhookSecret,
+    webhookUrl,
+    prices: DEFAULT_PLAN_PRICES,
+  });
   const lines = [
     `Stripe stand-in listening on ${standIn.url}`,
     `Webhooks: ${webhookUrl ?? 'not sent (set WEBHOOK_URL); events are recorded at /_stand-in/events'}`,

@@ -1,9 +1,10 @@
 /** The monthly prices the stand-in offers by default: Mullion's plans, from the plan catalogue. */
 import { PLANS } from '@domain/plans';
+import { planLookupKey } from '../../billing/config';
 import type { PriceSpec } from './billing';
 
 export const DEFAULT_PLAN_PRICES: readonly PriceSpec[] = PLANS.map((plan) => ({
-  lookupKey: `mullion_${plan.key}_monthly`,
+  lookupKey: planLookupKey(plan.key),
   nickname: plan.name,
   unitAmount: plan.monthlyPriceCents,
   currency: 'usd',

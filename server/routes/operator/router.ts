@@ -10,6 +10,7 @@ import { inputOf, validate } from '../../middlewares/validate';
 import { Tenant } from '../../models/Tenant';
 import { User } from '../../models/User';
 import { listTenants, operatorActionsOn, setTenantSuspended, staffCounts } from '../../services/operator-tenants';
+import { planSummaryOf } from '../../services/plan-usage';
 import { inTransaction, nowOf, pageOf, requireAbility } from '../helpers';
 
 const tenantParams = z.object({ tenantId: uuid });
@@ -60,10 +61,12 @@ export function operatorRouter(deps: AppDeps): Router {
     const actorIds = [...new Set(actions.map((a) => a.actorId).filter((x): x is string => !!x))];
     const actors = actorIds.length ? await User.findAll({ where: { id: actorIds }, crossTenant: true }) : [];
     const actorName = new Map(actors.map((a) => [a.id, a.name]));
+    const billing = await planSummaryOf(tenant, nowOf(deps));
     res.json({
       data: {
         ...presentOperatorTenant(tenant, counts.get(tenant.id) ?? 0),
         owner: owner ? { name: owner.name, email: owner.email } : null,
+        billing,
         actions: actions.map((a) => ({
           id: a.id,
           action: a.action,

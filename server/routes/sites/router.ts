@@ -11,7 +11,7 @@ import { Site } from '../../models/Site';
 import { audienceOf } from '../../presenters/client';
 import { presentSite } from '../../presenters/site';
 import { createSite, deleteSite, revealPasscode, updateSite } from '../../services/sites';
-import { authorizeRecord, inTransaction, pageOf, requireAbility, requireFirm } from '../helpers';
+import { authorizeRecord, inTransaction, pageOf, requireAbility, requireFirm, nowOf } from '../helpers';
 import { siteParams } from './schema';
 
 const SORTABLE = { name: 'name', city: 'city', createdAt: 'createdAt' } as const;
@@ -80,7 +80,7 @@ export function sitesRouter(deps: AppDeps): Router {
   router.post('/sites', validate({ body: siteSchema }), async (req, res) => {
     const { body } = inputOf(req, { body: siteSchema });
     authorizeRecord(req, 'create', 'Site', { tenantId: req.ctx.tenantId, clientId: body.clientId }, 'site');
-    const site = await inTransaction(req, deps, (ctx) => createSite(ctx, body, deps.secrets));
+    const site = await inTransaction(req, deps, (ctx) => createSite(ctx, body, deps.secrets, nowOf(deps)));
     res.status(201).json({ data: await present(req, site) });
   });
 
