@@ -72,7 +72,10 @@ export async function inviteToFirm(
   if (taken > 0) throw errors.emailTaken();
   // A staff invitation holds a seat from the moment it is sent (one replacing a pending one to the same address does not add one).
   if (input.role !== 'client') {
-    const replacing = await Invitation.count({ where: scoped(ctx, { email: input.email, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: deps.now } }), transaction: ctx.transaction });
+    const replacing = await Invitation.count({
+      where: scoped(ctx, { email: input.email, role: { [Op.ne]: 'client' }, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: deps.now } }),
+      transaction: ctx.transaction,
+    });
     if (replacing === 0) await assertWithinPlan(ctx, 'seat', deps.now);
   }
   const { token, tokenHash } = newToken();
@@ -101,6 +104,9 @@ export async function inviteToFirm(
 /** Sends a pending invitation again with a fresh link and a fresh expiry; the old link stops working. */
 export async function resendInvitation(ctx: Ctx, invitation: Invitation, deps: MailDeps & { now: Date }): Promise<Invitation> {
   if (invitation.acceptedAt) throw errors.conflict('This invitation was already accepted.');
+  // A withdrawn or expired staff invitation holds no seat; sending it again takes one.
+  const heldSeat = !invitation.revokedAt && invitation.expiresAt.getTime() > deps.now.getTime();
+  if (invitation.role !== 'client' && !heldSeat) await assertWithinPlan(ctx, 'seat', deps.now);
   const { token, tokenHash } = newToken();
   await invitation.update(
     { tokenHash, revokedAt: null, sentAt: deps.now, expiresAt: new Date(deps.now.getTime() + LIMITS.invitationDays * DAY_MS) },

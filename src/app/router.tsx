@@ -103,6 +103,8 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'sites/:siteId/premises', ...page(() => import('./routes/firm/premises')) },
             { path: 'sites/:siteId/coverage', ...page(() => import('./routes/firm/coverage')) },
             { path: 'settings', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/settings')) },
+            { path: 'billing', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/billing')) },
+            { path: 'business', ...guardedPage(firmEditorsOnly, () => import('./routes/firm/business')) },
             { path: 'panels/:panelId', ...page(() => import('./routes/firm/panel')) },
             { path: 'jobs', ...page(() => import('./routes/firm/jobs')) },
             { path: 'jobs/:jobId', ...page(() => import('./routes/firm/job')) },
@@ -117,6 +119,7 @@ export function createAppRouter(queryClient: QueryClient) {
           children: [
             { index: true, ...page(() => import('./routes/operator/tenants')) },
             { path: 'firms/:tenantId', ...page(() => import('./routes/operator/tenant')) },
+            { path: 'revenue', ...page(() => import('./routes/operator/revenue')) },
           ],
         },
         {

@@ -12,6 +12,8 @@ export const paths = {
     overview: '/app',
     staff: '/app/staff',
     settings: '/app/settings',
+    billing: '/app/billing',
+    business: '/app/business',
     panel: (panelId = ':panelId') => `/app/panels/${panelId}`,
     clients: '/app/clients',
     client: (clientId = ':clientId') => `/app/clients/${clientId}`,
@@ -29,6 +31,7 @@ export const paths = {
     root: '/operator',
     tenants: '/operator',
     tenant: (tenantId = ':tenantId') => `/operator/firms/${tenantId}`,
+    revenue: '/operator/revenue',
   },
   portal: {
     root: '/portal',

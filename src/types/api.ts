@@ -31,6 +31,8 @@ export interface ApiFirm {
   planKey?: string | null;
   trialEndsAt?: string | null;
   trialDaysLeft?: number | null;
+  /** staff only: why the firm may read but not write right now (trial over, past due, cancelled), or null */
+  readOnly?: { code: string; message: string } | null;
   createdAt?: string;
 }
 
@@ -96,6 +98,7 @@ export interface OperatorTenant {
 
 export interface OperatorTenantDetail extends OperatorTenant {
   owner: { name: string; email: string } | null;
+  billing: OperatorTenantBilling;
   actions: { id: string; action: string; at: string; by: string; reason: string | null }[];
 }
 
@@ -569,4 +572,85 @@ export interface PortalDocument {
   createdAt: string;
   visit: { kindLabel: string; on: string | null } | null;
   fileUrl: string;
+}
+
+/** GET /api/operator/revenue: the service's MRR and firms, for the operator. */
+export interface OperatorRevenue {
+  mrrCents: number;
+  /** firms whose subscription counts in MRR now (active or past due) */
+  activeSubscriptions: number;
+  firmsByState: Record<TenantState, number>;
+  trialsEndingThisWeek: { id: string; name: string; trialEndsAt: string }[];
+  /** the last 12 calendar months, oldest first */
+  series: { month: string; label: string; mrrCents: number }[];
+}
+
+/** A firm's plan and its usage against the plan's limits (operator firm page). */
+export interface OperatorTenantBilling {
+  planKey: string | null;
+  planName: string | null;
+  monthlyPriceCents: number | null;
+  usage: { activeSites: number; staffSeats: number };
+  limits: { activeSites: number; staffSeats: number; onTrial: boolean };
+}
+
+/** GET /api/firm/business: the firm's own numbers from its monitoring contracts. */
+export interface FirmBusiness {
+  /** the firm's today, 'YYYY-MM-DD' */
+  today: string;
+  rmrCents: number;
+  activeContracts: number;
+  newContracts12m: number;
+  cancelledContracts12m: number;
+  attrition: {
+    periodStart: string;
+    periodEnd: string;
+    cancelled: number;
+    activeAtStart: number;
+    activeAtEnd: number;
+    averageActive: number;
+    /** a fraction (0.25 is 25 %); null when nothing was in force */
+    rate: number | null;
+  };
+  /** renewals due within 90 days, soonest first */
+  renewals: { siteId: string; siteName: string; clientId: string; clientName: string; renewsOn: string; monthlyFeeCents: number | null }[];
+  series: { month: string; label: string; rmrCents: number; activeContracts: number }[];
+}
+
+/** GET /api/billing (owners only): the firm's plan, state, dates, usage against limits and the catalogue. */
+export interface ApiBilling {
+  state: TenantState;
+  stateLabel: string;
+  planKey: string | null;
+  plan: { key: string; name: string; monthlyPriceCents: number; staffSeats: number; activeSites: number } | null;
+  trialEndsAt: string | null;
+  trialDaysLeft: number | null;
+  pastDueSince: string | null;
+  graceEndsAt: string | null;
+  currentPeriodEnd: string | null;
+  cancelAtPeriodEnd: boolean;
+  readOnly: { code: 'trial_ended' | 'past_due' | 'cancelled'; message: string } | null;
+  usage: { activeSites: number; staffSeats: number };
+  /** the plan's limits, or the largest plan's while on trial (`onTrial`) */
+  limits: { activeSites: number; staffSeats: number; onTrial: boolean };
+  /** a subscription Stripe still bills: changes go through the billing portal, not Checkout */
+  hasSubscription: boolean;
+  paymentsConfigured: boolean;
+  plans: { key: string; name: string; monthlyPriceCents: number; staffSeats: number; activeSites: number; pitch: string }[];
+}
+
+/** GET /api/billing/invoices: the firm's invoices as Stripe keeps them, newest first. */
+export interface ApiInvoice {
+  id: string;
+  number: string | null;
+  /** Stripe's word: draft, open, paid, uncollectible, void */
+  status: string | null;
+  amountDueCents: number;
+  amountPaidCents: number;
+  currency: string;
+  createdAt: string;
+  periodStart: string | null;
+  periodEnd: string | null;
+  hostedInvoiceUrl: string | null;
+  pdfUrl: string | null;
 }

@@ -23,7 +23,7 @@ function navLabels(which = 0): string[] {
 
 describe('firm navigation shows only what the role may use', () => {
   const cases: [Role, string[]][] = [
-    ['owner', ['Overview', 'Jobs', 'Schedule', 'Clients', 'Staff', 'Firm settings']],
+    ['owner', ['Overview', 'Jobs', 'Schedule', 'Clients', 'Staff', 'Business', 'Billing', 'Firm settings']],
     ['coordinator', ['Overview', 'Jobs', 'Schedule', 'Clients', 'Staff']],
     ['technician', ['Overview', 'Today', 'Jobs', 'Schedule', 'Clients', 'Staff']],
   ];

@@ -1,5 +1,5 @@
-import { NavLink, Outlet, useNavigate } from 'react-router-dom';
-import { Building2, CalendarDays, ClipboardList, Home, LayoutDashboard, LogOut, Settings, Sun, Users } from 'lucide-react';
+import { Link, NavLink, Outlet, useMatch, useNavigate } from 'react-router-dom';
+import { AlertTriangle, Building2, CalendarDays, ClipboardList, CreditCard, Home, LayoutDashboard, LogOut, Settings, Sun, TrendingUp, Users } from 'lucide-react';
 import type { LucideIcon } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AbilityProvider, useAbilityFromRules } from '@/lib/ability';
@@ -26,6 +26,8 @@ const NAV: NavItem[] = [
   { to: paths.firm.schedule, label: 'Schedule', icon: CalendarDays, visible: (a) => a.can('read', 'Job') },
   { to: paths.firm.clients, label: 'Clients', icon: Home, visible: (a) => a.can('read', 'Client') },
   { to: paths.firm.staff, label: 'Staff', icon: Users, visible: (a) => a.can('read', 'User') },
+  { to: paths.firm.business, label: 'Business', icon: TrendingUp, visible: (a) => a.can('manage', 'Billing') },
+  { to: paths.firm.billing, label: 'Billing', icon: CreditCard, visible: (a) => a.can('manage', 'Billing') },
   { to: paths.firm.settings, label: 'Firm settings', icon: Settings, visible: (a) => a.can('update', 'Tenant') },
 ];
 
@@ -49,6 +51,8 @@ export function FirmLayout() {
   const phone = phoneItems(items, session.user?.role);
   const firm = session.tenant;
   const user = session.user;
+  // The Billing page shows the read-only notice itself, with its action.
+  const onBillingPage = useMatch(paths.firm.billing) !== null;
 
   const doSignOut = () => signOut.mutate(undefined, { onSettled: () => void navigate(paths.signIn) });
 
@@ -100,6 +104,23 @@ export function FirmLayout() {
             </span>
             {firm?.state === 'trialing' && firm.trialDaysLeft != null && <Badge tone="brass">Trial · {firm.trialDaysLeft}d</Badge>}
           </header>
+          {firm?.readOnly && !onBillingPage && (
+            <div role="status" className="border-b border-clay-600/40 bg-clay-50 px-4 py-2 text-sm text-ink sm:px-6">
+              <p className="mx-auto flex max-w-6xl flex-wrap items-start gap-x-2 gap-y-1">
+                <AlertTriangle className="mt-0.5 size-4 shrink-0 text-clay-600" aria-hidden="true" />
+                <span className="min-w-0 flex-1">
+                  {firm.readOnly.message}{' '}
+                  {ability.can('manage', 'Billing') ? (
+                    <Link to={paths.firm.billing} className="font-medium whitespace-nowrap text-clay-600 underline underline-offset-2 hover:text-ink">
+                      Go to billing
+                    </Link>
+                  ) : (
+                    <span className="font-medium">Ask your firm’s owner to sort out billing.</span>
+                  )}
+                </span>
+              </p>
+            </div>
+          )}
           <main className="mx-auto w-full min-w-0 max-w-6xl flex-1 px-4 py-6 sm:px-6 md:py-8">
             <Outlet />
           </main>

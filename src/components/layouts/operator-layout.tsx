@@ -1,9 +1,16 @@
-import { Link, Outlet, useNavigate } from 'react-router-dom';
+import { Link, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { LogOut } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AbilityProvider, useAbilityFromRules } from '@/lib/ability';
 import { useSession, useSignOut } from '@/lib/auth';
 import { MullionWordmark } from '@/components/ui/logo';
+import { cn } from '@/lib/cn';
+
+/** The console's sections; a firm's page belongs to "Firms". */
+const OPERATOR_NAV = [
+  { to: paths.operator.tenants, label: 'Firms', matches: (pathname: string) => !pathname.startsWith(paths.operator.revenue) },
+  { to: paths.operator.revenue, label: 'Revenue', matches: (pathname: string) => pathname.startsWith(paths.operator.revenue) },
+];
 
 /** The operator console: its own header (ink with a thin brass rule) so nobody mistakes it for a firm's workspace. */
 export function OperatorLayout() {
@@ -11,6 +18,7 @@ export function OperatorLayout() {
   const ability = useAbilityFromRules(session.rules);
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const { pathname } = useLocation();
   return (
     <AbilityProvider value={ability}>
       <div className="min-h-dvh">
@@ -33,6 +41,24 @@ export function OperatorLayout() {
               </button>
             </div>
           </div>
+          <nav aria-label="Operator console" className="mx-auto flex max-w-6xl gap-1 px-2 pb-2 text-sm sm:px-4">
+            {OPERATOR_NAV.map((item) => {
+              const current = item.matches(pathname);
+              return (
+                <Link
+                  key={item.to}
+                  to={item.to}
+                  aria-current={current ? 'page' : undefined}
+                  className={cn(
+                    'rounded-md px-2 py-1',
+                    current ? 'bg-paper/10 font-semibold text-paper' : 'text-paper/80 hover:bg-paper/5 hover:text-paper',
+                  )}
+                >
+                  {item.label}
+                </Link>
+              );
+            })}
+          </nav>
         </header>
         <main className="mx-auto w-full min-w-0 max-w-6xl px-4 py-6 sm:px-6 md:py-8">
           <Outlet />

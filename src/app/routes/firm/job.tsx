@@ -54,7 +54,8 @@ export default function JobPage() {
         <h1 className="text-xl font-semibold break-words text-ink">{job.summary}</h1>
         <div className="flex flex-col gap-1 text-sm text-slate-500 sm:flex-row sm:flex-wrap sm:gap-x-4">
           <Link to={paths.firm.site(job.siteId)} className="inline-flex items-center gap-1 text-brass-700 hover:underline">
-            <MapPin className="size-4" aria-hidden="true" /> {job.siteName || site.data?.name || 'Site'}
+            <MapPin className="size-4" aria-hidden="true" /> {site.data?.clientName ? `${site.data.clientName} · ` : ''}
+            {job.siteName || site.data?.name || 'Site'}
           </Link>
           <span>
             {formatWhen(job.scheduledStart, job.scheduledEnd, timeZone)}

@@ -1,5 +1,5 @@
-import { useMemo, useState } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import { useEffect, useMemo, useState } from 'react';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ColumnDef } from '@tanstack/react-table';
 import { UserPlus } from 'lucide-react';
 import { ROLE_LABELS } from '@domain/roles';
@@ -13,6 +13,8 @@ import { TableSkeleton } from '@/components/ui/skeleton';
 import { useAppAbility } from '@/lib/ability';
 import { useSession } from '@/lib/auth';
 import { formatDate } from '@/lib/format';
+import { billingKeys, billingQuery } from '@/features/billing/api/billing-queries';
+import { usageWords } from '@/features/billing/components/usage-meter';
 import { staffListQuery } from '@/features/staff/api/staff-queries';
 import { InviteStaffDialog } from '@/features/staff/components/invite-staff-dialog';
 import { PendingInvitations } from '@/features/staff/components/pending-invitations';
@@ -21,11 +23,41 @@ import type { ApiUser } from '@/types/api';
 
 const PAGE_SIZE = 25;
 
+const count = new Intl.NumberFormat('en-US');
+
+/**
+ * "Staff seats 3 of 10" for those who manage billing. Invitations hold seats too, so the count
+ * is asked again after each change on this page; if billing cannot be read, nothing shows.
+ */
+function useStaffSeats(enabled: boolean) {
+  const queryClient = useQueryClient();
+  const billing = useQuery({ ...billingQuery(), enabled });
+  useEffect(() => {
+    if (!enabled) return;
+    // Inviting, revoking, deactivating: any change made on this page may free or take a seat.
+    return queryClient.getMutationCache().subscribe((event) => {
+      if (event.type === 'updated' && event.action.type === 'success') void queryClient.invalidateQueries({ queryKey: billingKeys.detail() });
+    });
+  }, [enabled, queryClient]);
+  return enabled && billing.data ? { used: billing.data.usage.staffSeats, max: billing.data.limits.staffSeats } : null;
+}
+
+function StaffSeats({ used, max }: { used: number; max: number }) {
+  const state = usageWords(used, max);
+  return (
+    <p className="self-center text-sm text-slate-500 tabular-nums">
+      Staff seats {count.format(used)} of {count.format(max)}
+      {state && <span className={state.tone === 'limit' ? 'font-medium text-clay-600' : 'font-medium text-ochre-600'}> · {state.words.toLowerCase()}</span>}
+    </p>
+  );
+}
+
 export default function StaffPage() {
   const { tenant, user } = useSession();
   const ability = useAppAbility();
   const canAdminister = ability.can('administer', 'User');
   const canInvite = ability.can('create', 'Invitation') && canAdminister;
+  const seats = useStaffSeats(ability.can('manage', 'Billing'));
   const { sort, page, setPage, table } = useServerTable('name');
   const [q, setQ] = useState('');
   const [inviting, setInviting] = useState(false);
@@ -91,10 +123,15 @@ export default function StaffPage() {
         title="Staff"
         context={canAdminister ? 'Who works in this firm, with which role. Invite your office and technicians.' : 'Who works in this firm, with which role.'}
         action={
-          canInvite && (
-            <Button onClick={() => setInviting(true)}>
-              <UserPlus className="size-4" aria-hidden="true" /> Invite a colleague
-            </Button>
+          (canInvite || seats) && (
+            <>
+              {seats && <StaffSeats used={seats.used} max={seats.max} />}
+              {canInvite && (
+                <Button onClick={() => setInviting(true)}>
+                  <UserPlus className="size-4" aria-hidden="true" /> Invite a colleague
+                </Button>
+              )}
+            </>
           )
         }
       />

@@ -2,12 +2,13 @@ import { useState } from 'react';
 import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { ArrowLeft } from 'lucide-react';
-import { planByKey } from '@domain/plans';
+import { formatCents } from '@domain/plans';
 import { paths } from '@/config/paths';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { formatDate, formatDateTime } from '@/lib/format';
+import { UsageBar } from '@/features/business/components/usage-bar';
 import { tenantDetailQuery } from '@/features/operator/api/operator-queries';
 import { SuspendDialog } from '@/features/operator/components/suspend-dialog';
 import { TenantStateBadge } from '@/features/operator/components/tenant-state-badge';
@@ -23,7 +24,7 @@ export default function OperatorTenantPage() {
   const { data: firm } = useSuspenseQuery(tenantDetailQuery(tenantId));
   const [dialog, setDialog] = useState(false);
   const suspended = firm.state === 'suspended';
-  const plan = firm.planKey ? planByKey(firm.planKey) : undefined;
+  const { billing } = firm;
 
   return (
     <>
@@ -54,18 +55,33 @@ export default function OperatorTenantPage() {
           <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-sm">
             <dt className="text-slate-500">Owner</dt>
             <dd>{firm.owner ? `${firm.owner.name} · ${firm.owner.email}` : '—'}</dd>
-            <dt className="text-slate-500">Plan</dt>
-            <dd>{plan?.name ?? 'None chosen'}</dd>
-            <dt className="text-slate-500">Staff seats used</dt>
-            <dd>
-              {firm.staffCount}
-              {plan ? ` of ${plan.staffSeats}` : ''}
-            </dd>
             <dt className="text-slate-500">Trial ends</dt>
             <dd>{firm.state === 'trialing' ? formatDate(firm.trialEndsAt) : '—'}</dd>
             <dt className="text-slate-500">Created</dt>
             <dd>{formatDate(firm.createdAt)}</dd>
           </dl>
+        </Card>
+        <Card title="Plan and usage">
+          <p className="text-sm">
+            {billing.planName ? (
+              <>
+                <span className="font-medium">{billing.planName}</span>
+                {billing.monthlyPriceCents !== null && <span className="tabular-nums"> · {formatCents(billing.monthlyPriceCents)}/month</span>}
+              </>
+            ) : billing.planKey ? (
+              <>
+                Unknown plan <span className="font-mono">{billing.planKey}</span>
+              </>
+            ) : (
+              'No plan chosen yet'
+            )}
+          </p>
+          {billing.limits.onTrial && <p className="mt-1 text-xs text-slate-500">On trial: the largest plan’s limits apply until the firm chooses a plan.</p>}
+          <div className="mt-4 space-y-4">
+            <UsageBar label="Sites" used={billing.usage.activeSites} max={billing.limits.activeSites} />
+            <UsageBar label="Staff seats" used={billing.usage.staffSeats} max={billing.limits.staffSeats} />
+          </div>
+          <p className="mt-3 text-xs text-slate-500">Sites of cancelled clients do not count; pending staff invitations hold a seat.</p>
         </Card>
         <Card title="Service actions on this firm">
           {firm.actions.length === 0 ? (

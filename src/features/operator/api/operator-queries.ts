@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { TenantState } from '@domain/tenant-states';
 import { api } from '@/lib/api-client';
-import type { ListResponse, OperatorTenant, OperatorTenantDetail } from '@/types/api';
+import type { ListResponse, OperatorRevenue, OperatorTenant, OperatorTenantDetail } from '@/types/api';
 
 export interface TenantFilters {
   page: number;
@@ -38,12 +38,24 @@ export const tenantDetailQuery = (id: string) =>
     queryFn: ({ signal }) => api.get<{ data: OperatorTenantDetail }>(`/api/operator/tenants/${id}`, signal).then((r) => r.data),
   });
 
+/** The service's MRR, firms by state and trials ending soon. */
+export const operatorRevenueQuery = () =>
+  queryOptions({
+    queryKey: ['operator', 'revenue'] as const,
+    queryFn: ({ signal }) => api.get<{ data: OperatorRevenue }>('/api/operator/revenue', signal).then((r) => r.data),
+  });
+
 export function useSetSuspended(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ suspend, reason }: { suspend: boolean; reason: string }) =>
       api.post<{ data: OperatorTenant }>(`/api/operator/tenants/${id}/${suspend ? 'suspend' : 'restore'}`, { reason }).then((r) => r.data),
     onSuccess: () =>
-      Promise.all([queryClient.invalidateQueries({ queryKey: operatorKeys.detail(id) }), queryClient.invalidateQueries({ queryKey: operatorKeys.lists() })]),
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: operatorKeys.detail(id) }),
+        queryClient.invalidateQueries({ queryKey: operatorKeys.lists() }),
+        // a suspension moves the firm to another state in the revenue view
+        queryClient.invalidateQueries({ queryKey: operatorRevenueQuery().queryKey }),
+      ]),
   });
 }

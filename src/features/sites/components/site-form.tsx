@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useController, useForm, type Control } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { siteSchema, type SiteInput, type SiteValues } from '@domain/schemas/site';
@@ -57,6 +57,7 @@ export interface SiteFormProps {
 export function SiteForm({ clientId, site, defaultTimeZone, busy, submitLabel, onSubmit, onCancel }: SiteFormProps) {
   const zones = useMemo(() => timeZoneOptions(), []);
   const [formError, setFormError] = useState<string | null>(null);
+  const formErrorRef = useRef<HTMLDivElement>(null);
   const [clearPasscode, setClearPasscode] = useState(false);
   const { register, handleSubmit, setError, formState, control } = useForm<SiteInput, unknown, SiteValues>({
     resolver: zodResolver(siteSchema),
@@ -76,6 +77,13 @@ export function SiteForm({ clientId, site, defaultTimeZone, busy, submitLabel, o
   });
   const e = formState.errors;
 
+  // The submit button sits at the end of a long form: bring a message for the whole form
+  // (a refusal such as the plan's site limit or a read-only firm) into view where it shows.
+  useEffect(() => {
+    const el = formErrorRef.current;
+    if (formError && el && typeof el.scrollIntoView === 'function') el.scrollIntoView({ behavior: 'smooth', block: 'center' });
+  }, [formError]);
+
   const submit = handleSubmit((values) => {
     setFormError(null);
     const passcode = clearPasscode ? null : values.passcode ? values.passcode : undefined;
@@ -84,7 +92,9 @@ export function SiteForm({ clientId, site, defaultTimeZone, busy, submitLabel, o
 
   return (
     <form onSubmit={submit} noValidate className="space-y-6">
-      <FormError message={formError} />
+      <div ref={formErrorRef} className="empty:hidden">
+        <FormError message={formError} />
+      </div>
       <Card title="Site">
         <div className="grid gap-4 sm:grid-cols-2">
           <FormField label="Site name" error={e.name?.message} hint="How the household calls it: “Home”, “Lake house”.">
