@@ -1,11 +1,12 @@
 /**
- * Journeys 1 and 3 in a real browser: a firm owner signs up and invites a technician, who
+ * Journeys 1 and 3 in a real browser: a firm owner signs up, picks a plan and pays on the
+ * (stand-in) Stripe checkout page, comes back to an active firm and invites a technician, who
  * accepts the e-mailed invitation on a phone and sees only what a technician may; the
  * operator suspends the firm, and the technician's next page load is refused.
  */
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { latestMailTo, launchBrowser, linkIn, mailUrl, newContext } from './support/browser';
+import { latestMailTo, launchBrowser, linkIn, mailUrl, newContext, stripeUrl } from './support/browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -36,7 +37,22 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await expect.poll(() => owner.getByText(firmName).first().isVisible()).toBe(true);
     await expect.poll(() => owner.getByText(/Trial · 14 days left/).first().isVisible()).toBe(true);
 
-    // 2. The owner invites a technician from the staff page.
+    // 2. The owner picks a plan and pays on the checkout page; back in Mullion the firm is active.
+    await owner.goto('/app/billing');
+    await expect.poll(() => owner.getByText(/Trial — 14 days left/).first().isVisible()).toBe(true);
+    await owner.getByRole('button', { name: 'Choose Crew' }).click();
+    await owner.waitForURL((url) => url.origin === new URL(stripeUrl()).origin && url.pathname.startsWith('/checkout/'));
+    await expect.poll(() => owner.getByText(firmName).first().isVisible()).toBe(true);
+    await expect.poll(() => owner.getByText(/\$149/).first().isVisible()).toBe(true);
+    expect(await owner.getByLabel('Card number').inputValue()).toBe('4242 4242 4242 4242');
+    await owner.getByRole('button', { name: 'Pay and subscribe' }).click();
+    await owner.waitForURL((url) => url.pathname === '/app/billing');
+    await expect.poll(() => owner.getByText('Payment received. Welcome to the Crew plan.').isVisible(), { timeout: 20_000 }).toBe(true);
+    await expect.poll(() => owner.getByText(/Crew plan, \$149 a month, renews/).first().isVisible()).toBe(true);
+    await expect.poll(() => owner.getByRole('button', { name: 'Manage payment and plan' }).first().isVisible()).toBe(true);
+    await expect.poll(() => owner.getByText(/Staff seats\s*1 of 10/).first().isVisible()).toBe(true);
+
+    // 3. The owner invites a technician from the staff page, within the Crew plan's seats.
     const invitedAt = new Date(Date.now() - 1000);
     await owner.getByRole('link', { name: 'Staff' }).first().click();
     await owner.getByRole('button', { name: 'Invite a colleague' }).click();
@@ -47,12 +63,12 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await expect.poll(() => owner.getByText(`Invitation sent to ${techEmail}.`).isVisible()).toBe(true);
     await expect.poll(() => owner.getByText('Invitations not yet accepted').isVisible()).toBe(true);
 
-    // 3. The invitation arrives in the mail catcher.
+    // 4. The invitation arrives in the mail catcher.
     const mail = await latestMailTo(mailUrl(), techEmail, { after: invitedAt });
     expect(mail.subject).toBe(`${firmName} invited you to Mullion`);
     const link = linkIn(mail, '/invitations/');
 
-    // 4. The technician accepts on a phone and lands signed in as technician.
+    // 5. The technician accepts on a phone and lands signed in as technician.
     const techContext = await newContext(browser, { viewport: 'phone' });
     const tech = await techContext.newPage();
     await tech.goto(link);
@@ -78,7 +94,7 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await owner.reload();
     await expect.poll(() => owner.getByRole('cell', { name: /^Tariq Vane/ }).isVisible()).toBe(true);
 
-    // 5. The operator signs in and suspends the firm.
+    // 6. The operator signs in and suspends the firm.
     const opContext = await newContext(browser, { viewport: 'desktop' });
     const op = await opContext.newPage();
     await op.goto('/sign-in');
@@ -94,7 +110,7 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await suspend.getByRole('button', { name: 'Suspend firm' }).click();
     await expect.poll(() => op.getByText(/Suspended .*: Chargeback under review/).isVisible()).toBe(true);
 
-    // 6. The technician's next page load is refused: back to sign-in, with the reason.
+    // 7. The technician's next page load is refused: back to sign-in, with the reason.
     await tech.goto('/app/staff');
     await tech.waitForURL((url) => url.pathname === '/sign-in');
     await expect.poll(() => tech.getByRole('alert').filter({ hasText: 'suspended' }).isVisible()).toBe(true);
@@ -105,7 +121,7 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await expect.poll(() => tech.getByRole('alert').filter({ hasText: 'suspended' }).isVisible()).toBe(true);
     expect(new URL(tech.url()).pathname).toBe('/sign-in');
 
-    // 7. Restoring lets the firm back in; nothing was deleted.
+    // 8. Restoring lets the firm back in; nothing was deleted.
     await op.getByRole('button', { name: 'Restore firm' }).click();
     const restore = op.getByRole('dialog', { name: `Restore ${firmName}?` });
     await restore.getByLabel(/Reason/).fill('Chargeback resolved');

@@ -35,6 +35,11 @@ export function mailUrl(): string {
   return inject('mailUrl');
 }
 
+/** The local Stripe stand-in (its hosted checkout and billing portal pages). */
+export function stripeUrl(): string {
+  return inject('stripeUrl');
+}
+
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({ executablePath: inject('chromiumPath'), args: CHROMIUM_ARGS, headless: true });
 }
