@@ -208,6 +208,25 @@ describe('billing page on trial', () => {
     expect(within(planCard('Fleet')).getByRole('button', { name: 'Choose Fleet' })).toBeDisabled();
   });
 
+  it('a firm on a plan Stripe does not bill yet sees its plan marked and can start paying for it by card', async () => {
+    const session = sessionAs('owner');
+    const assign = stubAssign();
+    const fetchMock = stubApi(session, {
+      'GET /api/billing': jsonResponse(200, { data: { ...onCrew, usage: { activeSites: 12, staffSeats: 4 }, hasSubscription: false } }),
+      'GET /api/billing/invoices': jsonResponse(200, { data: [] }),
+      'POST /api/billing/checkout': jsonResponse(201, { data: { url: 'https://checkout.example/c/cs_test_2' } }),
+    });
+    renderBilling(session);
+
+    const card = await screen.findByRole('article', { name: 'Crew' });
+    expect(within(card).getByText('Your plan')).toBeInTheDocument();
+    expect(within(card).queryByRole('button', { name: 'Choose Crew' })).toBeNull();
+    await userEvent.click(within(card).getByRole('button', { name: 'Pay for it by card' }));
+    await waitFor(() => expect(assign).toHaveBeenCalledWith('https://checkout.example/c/cs_test_2'));
+    expect(JSON.parse(callsTo(fetchMock, 'POST', '/api/billing/checkout')[0]![1]!.body as string)).toEqual({ planKey: 'crew' });
+    expect(within(planCard('Fleet')).getByRole('button', { name: 'Choose Fleet' })).toBeInTheDocument();
+  });
+
   it('disables a plan smaller than what the firm uses, and says why', async () => {
     const session = sessionAs('owner');
     stubApi(session, { 'GET /api/billing': jsonResponse(200, { data: onTrial }), 'GET /api/billing/invoices': jsonResponse(200, { data: [] }) });

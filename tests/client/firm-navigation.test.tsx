@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { screen } from '@testing-library/react';
+import { screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { defineRulesFor } from '@domain/abilities';
 import type { Role } from '@domain/roles';
 import { FirmLayout } from '@/components/layouts/firm-layout';
@@ -35,11 +36,29 @@ describe('firm navigation shows only what the role may use', () => {
   });
 
   const phoneCases: [Role, string[]][] = [
-    ['technician', ['Today', 'Jobs', 'Clients', 'Sign out']],
-    ['coordinator', ['Overview', 'Jobs', 'Clients', 'Sign out']],
+    ['technician', ['Today', 'Jobs', 'Clients', 'More']],
+    ['coordinator', ['Overview', 'Jobs', 'Clients', 'More']],
   ];
   it.each(phoneCases)('%s has four items in the phone bar: %j', (role, expected) => {
     renderRoutes([{ path: '/', element: <FirmLayout /> }], { session: sessionFor(role) });
     expect(navLabels(1)).toEqual(expected);
+  });
+
+  const moreCases: [Role, string[]][] = [
+    ['owner', ['Schedule', 'Staff', 'Business', 'Billing', 'Firm settings']],
+    ['coordinator', ['Schedule', 'Staff']],
+    ['technician', ['Overview', 'Schedule', 'Staff']],
+  ];
+  it.each(moreCases)('%s finds the other sections and sign out under “More” on a phone: %j', async (role, expected) => {
+    renderRoutes([{ path: '/', element: <FirmLayout /> }], { session: sessionFor(role) });
+    expect(screen.queryByRole('list', { name: 'More sections' })).toBeNull();
+    const more = screen.getByRole('button', { name: 'More' });
+    await userEvent.click(more);
+    expect(more).toHaveAttribute('aria-expanded', 'true');
+    const list = screen.getByRole('list', { name: 'More sections' });
+    expect(within(list).getAllByRole('link').map((a) => a.textContent?.trim())).toEqual(expected);
+    expect(within(list).getByRole('button', { name: /Sign out/ })).toBeInTheDocument();
+    await userEvent.keyboard('{Escape}');
+    expect(screen.queryByRole('list', { name: 'More sections' })).toBeNull();
   });
 });

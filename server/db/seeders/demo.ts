@@ -9,6 +9,7 @@ import { hashPassword } from '../../auth/passwords';
 import type { SecretBox } from '../../crypto/secret-box';
 import type { TenantFiles } from '../../storage/tenant-files';
 import { seedInstalledBase } from './demo-installed-base';
+import { seedFirmSubscriptionHistory, seedOtherSubscribers } from './demo-subscriptions';
 import { AuditEvent } from '../../models/AuditEvent';
 import { Tenant } from '../../models/Tenant';
 import { User } from '../../models/User';
@@ -128,11 +129,20 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
         );
         signIns.push({ email: home.email, role: 'client', firm: firm.name });
       }
+      await seedFirmSubscriptionHistory(tenant, {
+        createdDaysAgo: firm.state === 'active' ? 120 : 5,
+        state: firm.state,
+        plan: firm.state === 'active' ? 'crew' : null,
+        trialDays: 14,
+        now,
+        transaction,
+      });
       await AuditEvent.create(
         { tenantId: tenant.id, actorId: null, actorRole: null, action: 'firm.created', subjectType: 'Tenant', subjectId: tenant.id, details: { demo: true }, ip: null },
         { transaction },
       );
     }
+    await seedOtherSubscribers({ now, passwordHash, transaction });
   });
   return signIns;
 }

@@ -1,5 +1,6 @@
-import { Link, NavLink, Outlet, useMatch, useNavigate } from 'react-router-dom';
-import { AlertTriangle, Building2, CalendarDays, ClipboardList, CreditCard, Home, LayoutDashboard, LogOut, Settings, Sun, TrendingUp, Users } from 'lucide-react';
+import { useEffect, useState } from 'react';
+import { Link, NavLink, Outlet, useLocation, useMatch, useNavigate } from 'react-router-dom';
+import { AlertTriangle, Building2, CalendarDays, ClipboardList, CreditCard, Home, LayoutDashboard, LogOut, Menu, Settings, Sun, TrendingUp, Users } from 'lucide-react';
 import type { LucideIcon } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { AbilityProvider, useAbilityFromRules } from '@/lib/ability';
@@ -32,8 +33,9 @@ const NAV: NavItem[] = [
 ];
 
 /**
- * The phone's bottom bar holds three sections and Sign out: a technician's day first for
- * technicians, the overview for the office; then jobs and clients.
+ * The phone's bottom bar holds three sections and "More": a technician's day first for
+ * technicians, the overview for the office; then jobs and clients. "More" opens the rest of the
+ * sections the role may use, and Sign out.
  */
 function phoneItems(items: NavItem[], role: Role | undefined): NavItem[] {
   const wanted = role === 'technician' ? [paths.firm.today, paths.firm.jobs, paths.firm.clients] : [paths.firm.overview, paths.firm.jobs, paths.firm.clients];
@@ -49,6 +51,16 @@ export function FirmLayout() {
   const navigate = useNavigate();
   const items = NAV.filter((item) => item.visible(ability, session.user?.role));
   const phone = phoneItems(items, session.user?.role);
+  const more = items.filter((item) => !phone.includes(item));
+  const [moreOpen, setMoreOpen] = useState(false);
+  const location = useLocation();
+  useEffect(() => setMoreOpen(false), [location.pathname]);
+  useEffect(() => {
+    if (!moreOpen) return;
+    const close = (e: KeyboardEvent) => e.key === 'Escape' && setMoreOpen(false);
+    window.addEventListener('keydown', close);
+    return () => window.removeEventListener('keydown', close);
+  }, [moreOpen]);
   const firm = session.tenant;
   const user = session.user;
   // The Billing page shows the read-only notice itself, with its action.
@@ -141,11 +153,41 @@ export function FirmLayout() {
           {Array.from({ length: Math.max(0, 3 - phone.length) }, (_, i) => (
             <span key={`gap-${i}`} />
           ))}
-          <button type="button" onClick={doSignOut} className="flex flex-col items-center justify-center gap-0.5 text-xs text-slate-500">
-            <LogOut className="size-5" aria-hidden="true" />
-            Sign out
+          <button
+            type="button"
+            onClick={() => setMoreOpen((open) => !open)}
+            aria-expanded={moreOpen}
+            aria-controls="firm-more"
+            className={cn('flex flex-col items-center justify-center gap-0.5 text-xs', moreOpen ? 'font-semibold text-brass-700' : 'text-slate-500')}
+          >
+            <Menu className="size-5" aria-hidden="true" />
+            More
           </button>
         </nav>
+        {moreOpen && (
+          <div id="firm-more" className="fixed inset-x-0 bottom-16 z-40 border-t border-line bg-card shadow-[0_-8px_24px_rgb(29_42_48/0.12)] md:hidden">
+            <ul className="divide-y divide-line" aria-label="More sections">
+              {more.map((item) => (
+                <li key={item.to}>
+                  <NavLink
+                    to={item.to}
+                    end={item.end ?? false}
+                    className={({ isActive }) => cn('flex h-12 items-center gap-3 px-4 text-sm', isActive ? 'font-semibold text-brass-700' : 'text-ink')}
+                  >
+                    <item.icon className="size-5 text-slate-500" aria-hidden="true" />
+                    {item.label}
+                  </NavLink>
+                </li>
+              ))}
+              <li>
+                <button type="button" onClick={doSignOut} className="flex h-12 w-full items-center gap-3 px-4 text-left text-sm text-ink">
+                  <LogOut className="size-5 text-slate-500" aria-hidden="true" />
+                  Sign out{user ? <span className="truncate text-slate-500"> · {user.name}</span> : null}
+                </button>
+              </li>
+            </ul>
+          </div>
+        )}
       </div>
     </AbilityProvider>
   );

@@ -8,7 +8,8 @@ import { planMisfit } from '../billing-words';
 /**
  * The three plans on the Billing page. Without a subscription each card chooses its plan
  * (Stripe Checkout); a plan too small for what the firm already uses says why and cannot be
- * chosen. With a subscription the current plan is marked and changes go through the portal.
+ * chosen. The current plan is marked; with a subscription changes go through the portal, and a
+ * firm on a plan Stripe does not bill yet (set up by the operator) can start paying for it by card.
  */
 export function BillingPlans({ billing }: { billing: ApiBilling }) {
   const checkout = useStartCheckout();
@@ -21,7 +22,7 @@ export function BillingPlans({ billing }: { billing: ApiBilling }) {
   return (
     <div className="grid gap-4 md:grid-cols-3">
       {billing.plans.map((plan) => {
-        const current = billing.hasSubscription && billing.plan?.key === plan.key;
+        const current = billing.plan?.key === plan.key;
         const misfit = current ? null : planMisfit(plan, billing.usage);
         const reasonId = `${baseId}-${plan.key}-reason`;
         return (
@@ -40,7 +41,7 @@ export function BillingPlans({ billing }: { billing: ApiBilling }) {
                   aria-describedby={misfit ? reasonId : undefined}
                   onClick={() => checkout.mutate(plan.key)}
                 >
-                  Choose {plan.name}
+                  {current ? 'Pay for it by card' : `Choose ${plan.name}`}
                 </Button>
               )}
               {failedWith === plan.key && (
