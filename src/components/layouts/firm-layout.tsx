@@ -52,9 +52,11 @@ export function FirmLayout() {
   const items = NAV.filter((item) => item.visible(ability, session.user?.role));
   const phone = phoneItems(items, session.user?.role);
   const more = items.filter((item) => !phone.includes(item));
-  const [moreOpen, setMoreOpen] = useState(false);
+  // "More" stays open only on the page where it was opened: going anywhere closes it.
   const location = useLocation();
-  useEffect(() => setMoreOpen(false), [location.pathname]);
+  const [moreOpenAt, setMoreOpenAt] = useState<string | null>(null);
+  const moreOpen = moreOpenAt === location.pathname;
+  const setMoreOpen = (open: boolean) => setMoreOpenAt(open ? location.pathname : null);
   useEffect(() => {
     if (!moreOpen) return;
     const close = (e: KeyboardEvent) => e.key === 'Escape' && setMoreOpen(false);
@@ -155,7 +157,7 @@ export function FirmLayout() {
           ))}
           <button
             type="button"
-            onClick={() => setMoreOpen((open) => !open)}
+            onClick={() => setMoreOpen(!moreOpen)}
             aria-expanded={moreOpen}
             aria-controls="firm-more"
             className={cn('flex flex-col items-center justify-center gap-0.5 text-xs', moreOpen ? 'font-semibold text-brass-700' : 'text-slate-500')}
