@@ -59,7 +59,7 @@ export function FirmLayout() {
   const setMoreOpen = (open: boolean) => setMoreOpenAt(open ? location.pathname : null);
   useEffect(() => {
     if (!moreOpen) return;
-    const close = (e: KeyboardEvent) => e.key === 'Escape' && setMoreOpen(false);
+    const close = (e: KeyboardEvent) => e.key === 'Escape' && setMoreOpenAt(null);
     window.addEventListener('keydown', close);
     return () => window.removeEventListener('keydown', close);
   }, [moreOpen]);
