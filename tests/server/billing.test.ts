@@ -657,6 +657,13 @@ describe('Checkout, the billing portal and invoices, end to end on the stand-in'
     expect(invoices.body.data[0].id).toMatch(/^in_/);
     expect(invoices.body.data[0].hostedInvoiceUrl).toMatch(new RegExp(`^${b.standIn.url}/invoices/in_`));
 
+    // The operator sees the same invoices on the firm's page; the firm's own owner cannot use that route.
+    const operator = await signedIn(await buildUser(null, 'operator'));
+    const forOperator = await operator.get(`/api/operator/tenants/${firm.id}/invoices`);
+    expect(forOperator.status).toBe(200);
+    expect(forOperator.body.data).toEqual(invoices.body.data);
+    expect((await ownerVisitor.get(`/api/operator/tenants/${firm.id}/invoices`)).status).toBe(403);
+
     // A second checkout while subscribed is refused: changes go through the billing portal.
     const again = await ownerVisitor.post('/api/billing/checkout', { planKey: 'fleet' });
     expect(again.status).toBe(409);

@@ -12,6 +12,7 @@ import { User } from '../../models/User';
 import { listTenants, operatorActionsOn, setTenantSuspended, staffCounts } from '../../services/operator-tenants';
 import { planSummaryOf } from '../../services/plan-usage';
 import { inTransaction, nowOf, pageOf, requireAbility } from '../helpers';
+import { listInvoices } from '../../services/billing';
 
 const tenantParams = z.object({ tenantId: uuid });
 const tenantListQuery = listQuery.extend({ state: z.enum(TENANT_STATES, { error: 'Not a firm state.' }).optional() });
@@ -51,6 +52,13 @@ export function operatorRouter(deps: AppDeps): Router {
     if (!tenant) throw errors.notFound('firm');
     return tenant;
   }
+
+  /** A firm's invoices as Stripe keeps them (none before its first checkout, or without payments set up). */
+  router.get('/operator/tenants/:tenantId/invoices', validate({ params: tenantParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: tenantParams });
+    const tenant = await loadTenant(params.tenantId);
+    res.json({ data: deps.billing ? await listInvoices(tenant, deps.billing) : [] });
+  });
 
   router.get('/operator/tenants/:tenantId', validate({ params: tenantParams }), async (req, res) => {
     const { params } = inputOf(req, { params: tenantParams });

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { useQuery, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { ArrowLeft } from 'lucide-react';
 import { formatCents } from '@domain/plans';
@@ -9,7 +9,9 @@ import { Card } from '@/components/ui/card';
 import { PageHeader } from '@/components/ui/page-header';
 import { formatDate, formatDateTime } from '@/lib/format';
 import { UsageBar } from '@/features/business/components/usage-bar';
-import { tenantDetailQuery } from '@/features/operator/api/operator-queries';
+import { tenantDetailQuery, tenantInvoicesQuery } from '@/features/operator/api/operator-queries';
+import { InvoicesTable } from '@/features/billing/components/invoices-table';
+import { Skeleton } from '@/components/ui/skeleton';
 import { SuspendDialog } from '@/features/operator/components/suspend-dialog';
 import { TenantStateBadge } from '@/features/operator/components/tenant-state-badge';
 
@@ -83,6 +85,9 @@ export default function OperatorTenantPage() {
           </div>
           <p className="mt-3 text-xs text-slate-500">Sites of cancelled clients do not count; pending staff invitations hold a seat.</p>
         </Card>
+        <Card title="Invoices">
+          <FirmInvoices tenantId={firm.id} />
+        </Card>
         <Card title="Service actions on this firm">
           {firm.actions.length === 0 ? (
             <p className="text-sm text-slate-500">No suspensions or restorations so far.</p>
@@ -103,4 +108,13 @@ export default function OperatorTenantPage() {
       <SuspendDialog tenantId={firm.id} firmName={firm.name} suspend={!suspended} open={dialog} onClose={() => setDialog(false)} />
     </>
   );
+}
+
+/** The firm's invoices from Stripe; the page stands even when Stripe cannot be reached. */
+function FirmInvoices({ tenantId }: { tenantId: string }) {
+  const invoices = useQuery(tenantInvoicesQuery(tenantId));
+  if (invoices.isPending) return <Skeleton className="h-16 w-full" />;
+  if (invoices.isError) return <p className="text-sm text-clay-600">{invoices.error.message}</p>;
+  if (invoices.data.length === 0) return <p className="text-sm text-slate-500">No invoices yet: the firm has not paid through Stripe.</p>;
+  return <InvoicesTable invoices={invoices.data} />;
 }

@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { TenantState } from '@domain/tenant-states';
 import { api } from '@/lib/api-client';
-import type { ListResponse, OperatorRevenue, OperatorTenant, OperatorTenantDetail } from '@/types/api';
+import type { ApiInvoice, ListResponse, OperatorRevenue, OperatorTenant, OperatorTenantDetail } from '@/types/api';
 
 export interface TenantFilters {
   page: number;
@@ -36,6 +36,13 @@ export const tenantDetailQuery = (id: string) =>
   queryOptions({
     queryKey: operatorKeys.detail(id),
     queryFn: ({ signal }) => api.get<{ data: OperatorTenantDetail }>(`/api/operator/tenants/${id}`, signal).then((r) => r.data),
+  });
+
+/** A firm's invoices from Stripe, for the operator's firm page. */
+export const tenantInvoicesQuery = (id: string) =>
+  queryOptions({
+    queryKey: [...operatorKeys.detail(id), 'invoices'] as const,
+    queryFn: ({ signal }) => api.get<{ data: ApiInvoice[] }>(`/api/operator/tenants/${id}/invoices`, signal).then((r) => r.data),
   });
 
 /** The service's MRR, firms by state and trials ending soon. */
