@@ -1,19 +1,12 @@
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery } from '@tanstack/react-query';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
-import { acceptInvitationSchema, type AcceptInvitationInput } from '@domain/schemas/auth';
 import { LIMITS } from '@domain/limits';
 import { paths } from '@/config/paths';
 import { PortalCard, portalLinkClass, usePortalFirm } from '@/components/layouts/portal-public-layout';
-import { Button } from '@/components/ui/button';
-import { FormError, FormField } from '@/components/ui/form-field';
-import { Input } from '@/components/ui/input';
 import { Skeleton } from '@/components/ui/skeleton';
-import { invitationQuery, useAcceptInvitation } from '@/features/auth/api/auth-mutations';
+import { invitationQuery } from '@/features/auth/api/auth-mutations';
+import { AcceptInvitationForm } from '@/features/auth/components/accept-invitation-form';
 import { telHref } from '@/features/portal/brand';
-import { applyServerErrors } from '@/lib/form-errors';
 
 /** A homeowner accepts the firm's invitation to its portal and chooses a password. */
 export default function PortalAcceptInvitationPage() {
@@ -21,12 +14,6 @@ export default function PortalAcceptInvitationPage() {
   const { token = '' } = useParams();
   const navigate = useNavigate();
   const preview = useQuery(invitationQuery(token));
-  const accept = useAcceptInvitation(token);
-  const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<AcceptInvitationInput>({
-    resolver: zodResolver(acceptInvitationSchema),
-    defaultValues: { name: '', password: '' },
-  });
 
   if (preview.isPending) {
     return (
@@ -66,13 +53,6 @@ export default function PortalAcceptInvitationPage() {
   // A staff invitation opened at a portal address belongs on the staff invitation page.
   if (inv.role !== 'client') return <Navigate to={paths.invitation(token)} replace />;
 
-  const onSubmit = handleSubmit((values) => {
-    setFormError(null);
-    accept.mutate(values, {
-      onSuccess: () => void navigate(paths.portal.root, { replace: true }),
-      onError: (err) => setFormError(applyServerErrors(err, setError, ['name', 'password'])),
-    });
-  });
   return (
     <PortalCard
       title={`Welcome to the ${inv.firm.name} client portal`}
@@ -87,18 +67,12 @@ export default function PortalAcceptInvitationPage() {
         </>
       }
     >
-      <form onSubmit={onSubmit} noValidate className="space-y-4">
-        <FormError message={formError} />
-        <FormField label="Your name" error={formState.errors.name?.message}>
-          <Input autoComplete="name" className="min-h-12" {...register('name')} />
-        </FormField>
-        <FormField label="Choose a password" error={formState.errors.password?.message} hint={`At least ${LIMITS.passwordMin} characters.`}>
-          <Input type="password" autoComplete="new-password" className="min-h-12" {...register('password')} />
-        </FormField>
-        <Button type="submit" size="lg" className="w-full" busy={accept.isPending}>
-          Create my sign-in
-        </Button>
-      </form>
+      <AcceptInvitationForm
+        token={token}
+        submitLabel="Create my sign-in"
+        onAccepted={() => void navigate(paths.portal.root, { replace: true })}
+        inputClassName="min-h-12"
+      />
     </PortalCard>
   );
 }

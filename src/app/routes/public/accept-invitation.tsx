@@ -1,29 +1,16 @@
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { acceptInvitationSchema, type AcceptInvitationInput } from '@domain/schemas/auth';
 import { LIMITS } from '@domain/limits';
 import { homeFor, paths } from '@/config/paths';
 import { AuthCard } from '@/components/layouts/public-layout';
-import { Button } from '@/components/ui/button';
-import { FormError, FormField } from '@/components/ui/form-field';
-import { Input } from '@/components/ui/input';
 import { Skeleton } from '@/components/ui/skeleton';
-import { invitationQuery, useAcceptInvitation } from '@/features/auth/api/auth-mutations';
-import { applyServerErrors } from '@/lib/form-errors';
+import { invitationQuery } from '@/features/auth/api/auth-mutations';
+import { AcceptInvitationForm } from '@/features/auth/components/accept-invitation-form';
 
 export default function AcceptInvitationPage() {
   const { token = '' } = useParams();
   const navigate = useNavigate();
   const preview = useQuery(invitationQuery(token));
-  const accept = useAcceptInvitation(token);
-  const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<AcceptInvitationInput>({
-    resolver: zodResolver(acceptInvitationSchema),
-    defaultValues: { name: '', password: '' },
-  });
 
   if (preview.isPending) {
     return (
@@ -47,13 +34,6 @@ export default function AcceptInvitationPage() {
     );
   }
   const inv = preview.data;
-  const onSubmit = handleSubmit((values) => {
-    setFormError(null);
-    accept.mutate(values, {
-      onSuccess: () => void navigate(homeFor(inv.role), { replace: true }),
-      onError: (err) => setFormError(applyServerErrors(err, setError, ['name', 'password'])),
-    });
-  });
   return (
     <AuthCard
       title={`Join ${inv.firm.name}`}
@@ -63,18 +43,7 @@ export default function AcceptInvitationPage() {
         </>
       }
     >
-      <form onSubmit={onSubmit} noValidate className="space-y-4">
-        <FormError message={formError} />
-        <FormField label="Your name" error={formState.errors.name?.message}>
-          <Input autoComplete="name" {...register('name')} />
-        </FormField>
-        <FormField label="Choose a password" error={formState.errors.password?.message} hint={`At least ${LIMITS.passwordMin} characters.`}>
-          <Input type="password" autoComplete="new-password" {...register('password')} />
-        </FormField>
-        <Button type="submit" size="lg" className="w-full" busy={accept.isPending}>
-          Accept and sign in
-        </Button>
-      </form>
+      <AcceptInvitationForm token={token} submitLabel="Accept and sign in" onAccepted={() => void navigate(homeFor(inv.role), { replace: true })} />
     </AuthCard>
   );
 }

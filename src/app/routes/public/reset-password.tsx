@@ -1,33 +1,12 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useParams } from 'react-router-dom';
-import { passwordResetSchema } from '@domain/schemas/auth';
-import { LIMITS } from '@domain/limits';
 import { paths } from '@/config/paths';
 import { AuthCard } from '@/components/layouts/public-layout';
-import { Button } from '@/components/ui/button';
-import { FormError, FormField } from '@/components/ui/form-field';
-import { Input } from '@/components/ui/input';
-import { useResetPassword } from '@/features/auth/api/auth-mutations';
-import { applyServerErrors } from '@/lib/form-errors';
+import { ResetPasswordForm } from '@/features/auth/components/reset-password-form';
 
 export default function ResetPasswordPage() {
   const { token = '' } = useParams();
-  const reset = useResetPassword(token);
   const [done, setDone] = useState(false);
-  const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<{ password: string }>({
-    resolver: zodResolver(passwordResetSchema),
-    defaultValues: { password: '' },
-  });
-  const onSubmit = handleSubmit((values) => {
-    setFormError(null);
-    reset.mutate(values, {
-      onSuccess: () => setDone(true),
-      onError: (err) => setFormError(applyServerErrors(err, setError, ['password'])),
-    });
-  });
 
   if (done) {
     return (
@@ -43,22 +22,19 @@ export default function ResetPasswordPage() {
   }
   return (
     <AuthCard title="Choose a new password">
-      <form onSubmit={onSubmit} noValidate className="space-y-4">
-        <FormError message={formError} />
-        <FormField label="New password" error={formState.errors.password?.message} hint={`At least ${LIMITS.passwordMin} characters.`}>
-          <Input type="password" autoComplete="new-password" {...register('password')} />
-        </FormField>
-        <Button type="submit" size="lg" className="w-full" busy={reset.isPending}>
-          Set the new password
-        </Button>
-        {formError && (
-          <p className="text-sm">
-            <Link to={paths.forgotPassword} className="font-medium text-brass-700 underline">
-              Ask for a new link
-            </Link>
-          </p>
-        )}
-      </form>
+      <ResetPasswordForm
+        token={token}
+        onDone={() => setDone(true)}
+        footer={(formError) =>
+          formError && (
+            <p className="text-sm">
+              <Link to={paths.forgotPassword} className="font-medium text-brass-700 underline">
+                Ask for a new link
+              </Link>
+            </p>
+          )
+        }
+      />
     </AuthCard>
   );
 }
