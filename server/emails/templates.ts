@@ -2,6 +2,8 @@
  * The e-mails Mullion sends, as plain text and simple HTML. Wording follows our voice:
  * plain, calm, says what to do next.
  */
+import type { ContactSnapshot } from '@domain/contact-changes';
+import { formatPhone } from '@domain/phone';
 import { ROLE_LABELS, type Role } from '@domain/roles';
 import type { MailMessage } from './mailer';
 
@@ -9,8 +11,11 @@ function escapeHtml(s: string): string {
   return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] ?? c);
 }
 
-function layout(title: string, paragraphs: string[], action: { label: string; href: string } | null, footer: string): string {
-  const body = paragraphs.map((p) => `<p style="margin:0 0 14px;line-height:1.5">${escapeHtml(p)}</p>`).join('');
+/** A paragraph is one line of text, or several lines kept together (a list). */
+function layout(title: string, paragraphs: (string | string[])[], action: { label: string; href: string } | null, footer: string): string {
+  const body = paragraphs
+    .map((p) => `<p style="margin:0 0 14px;line-height:1.5">${(Array.isArray(p) ? p : [p]).map(escapeHtml).join('<br>')}</p>`)
+    .join('');
   return `<!doctype html><html><body style="margin:0;background:#f6f4ef;font-family:'IBM Plex Sans',Arial,sans-serif;color:#1d2a30">
 <div style="max-width:560px;margin:0 auto;padding:24px">
 <div style="font-weight:600;font-size:18px;margin-bottom:16px">Mullion</div>
@@ -130,5 +135,46 @@ export function jobCompletionEmail(input: {
     text: `${lines.join('\n\n')}\n\n${footer}\n`,
     html: layout(subject, lines, null, footer),
     attachments: [{ filename: input.report.filename, content: input.report.content, contentType: 'application/pdf' }],
+  };
+}
+
+/** "1. Lena Quill (Daughter), +1 555 010 4402, other phone +1 555 010 4403" */
+function contactLines(contacts: ContactSnapshot[]): string[] {
+  if (contacts.length === 0) return ['(nobody)'];
+  return contacts.map((c, i) => {
+    const relation = c.relation ? ` (${c.relation})` : '';
+    const other = c.altPhone ? `, other phone ${formatPhone(c.altPhone)}` : '';
+    return `${i + 1}. ${c.name}${relation}, ${formatPhone(c.phone)}${other}`;
+  });
+}
+
+/**
+ * Tells the firm's owner and coordinators that a household changed its emergency contacts
+ * in the portal: what changed, the list before and now, and that the change must be
+ * confirmed with the monitoring center (Mullion does not pass it on).
+ */
+export function householdContactsChangedEmail(input: {
+  to: string;
+  householdName: string;
+  siteName: string;
+  summary: string;
+  before: ContactSnapshot[];
+  after: ContactSnapshot[];
+  monitoringCenterName: string;
+  monitoringCenterPhone: string;
+  link: string;
+}): MailMessage {
+  const subject = `${input.householdName} changed their emergency contacts`;
+  const center = [input.monitoringCenterName, input.monitoringCenterPhone ? formatPhone(input.monitoringCenterPhone) : ''].filter(Boolean).join(', ');
+  const intro = `${input.householdName} changed the emergency contacts of ${input.siteName} in your client portal. ${input.summary}.`;
+  const before = ['Before, in calling order:', ...contactLines(input.before)];
+  const after = ['Now, in calling order:', ...contactLines(input.after)];
+  const reminder = `Confirm the new list with the monitoring center${center ? ` (${center})` : ''}: Mullion does not pass the change on, and the household was told that you confirm changes with them.`;
+  const footer = 'You get this e-mail as the firm’s owner or a coordinator. The site page shows every change to its contacts.';
+  return {
+    to: input.to,
+    subject,
+    text: `${[intro, before.join('\n'), after.join('\n'), reminder].join('\n\n')}\n\nOpen the site: ${input.link}\n\n${footer}\n`,
+    html: layout(subject, [intro, before, after, reminder], { label: 'Open the site', href: input.link }, footer),
   };
 }

@@ -1,9 +1,13 @@
+import { Op } from 'sequelize';
 import type { z } from 'zod';
+import { CONTACT_CHANGE_ACTIONS, type ContactSnapshot } from '@domain/contact-changes';
 import type { contactListSchema, contactPatchSchema, contactSchema } from '@domain/schemas/contact';
 import { scoped, type Ctx } from '../context';
 import { errors } from '../errors';
+import { AuditEvent } from '../models/AuditEvent';
 import { EmergencyContact } from '../models/EmergencyContact';
 import type { Site } from '../models/Site';
+import { User } from '../models/User';
 import { recordAudit } from './audit-recorder';
 
 /** The monitoring center calls at most this many people per site (contactListSchema agrees). */
@@ -53,13 +57,14 @@ export async function addContact(ctx: Ctx, site: Site, input: ContactValues): Pr
   ordered.splice(at - 1, 0, contact);
   await contact.save({ transaction: ctx.transaction });
   await renumber(ctx, ordered);
-  await recordAudit(ctx, { action: 'contact.created', subjectType: 'Contact', subjectId: contact.id, details: { siteId: site.id, position: contact.position } });
+  await recordAudit(ctx, { action: 'contact.created', subjectType: 'Contact', subjectId: contact.id, details: { siteId: site.id, name: contact.name, position: contact.position } });
   return contact;
 }
 
 /** Changes the fields sent; a new `position` moves the contact and closes the gap it leaves. */
 export async function updateContact(ctx: Ctx, contact: EmergencyContact, patch: ContactPatch): Promise<EmergencyContact> {
   const { position, ...fields } = patch;
+  const previousName = contact.name;
   const keys = (Object.keys(fields) as (keyof typeof fields)[]).filter((k) => fields[k] !== undefined && fields[k] !== contact.get(k));
   for (const key of keys) contact.set(key, fields[key] as never);
   const changed: string[] = [...keys];
@@ -76,7 +81,13 @@ export async function updateContact(ctx: Ctx, contact: EmergencyContact, patch: 
     }
   }
   if (changed.length > 0) {
-    await recordAudit(ctx, { action: 'contact.updated', subjectType: 'Contact', subjectId: contact.id, details: { siteId: contact.siteId, changed } });
+    const names = changed.includes('name') ? { name: contact.name, previousName } : { name: contact.name };
+    await recordAudit(ctx, {
+      action: 'contact.updated',
+      subjectType: 'Contact',
+      subjectId: contact.id,
+      details: { siteId: contact.siteId, changed, ...names, position: contact.position },
+    });
   }
   return contact;
 }
@@ -85,11 +96,26 @@ export async function updateContact(ctx: Ctx, contact: EmergencyContact, patch: 
 export async function removeContact(ctx: Ctx, contact: EmergencyContact): Promise<void> {
   await contact.destroy({ transaction: ctx.transaction });
   await renumber(ctx, await listContacts(ctx, contact.siteId));
-  await recordAudit(ctx, { action: 'contact.deleted', subjectType: 'Contact', subjectId: contact.id, details: { siteId: contact.siteId } });
+  await recordAudit(ctx, { action: 'contact.deleted', subjectType: 'Contact', subjectId: contact.id, details: { siteId: contact.siteId, name: contact.name } });
 }
 
-/** Replaces the site's whole ordered list (positions follow the order given). */
-export async function replaceContacts(ctx: Ctx, site: Site, list: ContactList): Promise<EmergencyContact[]> {
+/** A contact as the history and e-mails keep it (no ids or positions: order is calling order). */
+export function snapshotOf(contact: EmergencyContact): ContactSnapshot {
+  return { name: contact.name, relation: contact.relation, phone: contact.phone, altPhone: contact.altPhone };
+}
+
+export interface ReplacedList {
+  contacts: EmergencyContact[];
+  before: ContactSnapshot[];
+  after: ContactSnapshot[];
+}
+
+/**
+ * Replaces the site's whole ordered list (positions follow the order given). The audit keeps
+ * the list before and after, so staff can see what changed and who changed it.
+ */
+export async function replaceContactList(ctx: Ctx, site: Site, list: ContactList): Promise<ReplacedList> {
+  const before = (await listContacts(ctx, site.id)).map(snapshotOf);
   await EmergencyContact.destroy({ where: scoped(ctx, { siteId: site.id }), transaction: ctx.transaction });
   const created: EmergencyContact[] = [];
   for (const [index, input] of list.contacts.entries()) {
@@ -100,6 +126,47 @@ export async function replaceContacts(ctx: Ctx, site: Site, list: ContactList): 
       ),
     );
   }
-  await recordAudit(ctx, { action: 'contacts.replaced', subjectType: 'Site', subjectId: site.id, details: { count: created.length } });
-  return created;
+  const after = created.map(snapshotOf);
+  await recordAudit(ctx, { action: 'contacts.replaced', subjectType: 'Site', subjectId: site.id, details: { count: created.length, before, after } });
+  return { contacts: created, before, after };
+}
+
+/** Replaces the site's whole ordered list; see `replaceContactList`. */
+export async function replaceContacts(ctx: Ctx, site: Site, list: ContactList): Promise<EmergencyContact[]> {
+  return (await replaceContactList(ctx, site, list)).contacts;
+}
+
+/** How many changes the history shows. */
+export const CONTACT_HISTORY_LIMIT = 50;
+
+/** One change to a site's contacts with the person who made it (null when unknown). */
+export interface ContactChangeRecord {
+  event: AuditEvent;
+  actor: User | null;
+}
+
+/**
+ * The site's contact changes, newest first: whole lists replaced (staff or the household)
+ * and single contacts added, changed or removed by staff. Actors are looked up in the firm.
+ */
+export async function contactChanges(ctx: Ctx, siteId: string): Promise<ContactChangeRecord[]> {
+  const single = CONTACT_CHANGE_ACTIONS.filter((a) => a !== 'contacts.replaced');
+  const events = await AuditEvent.findAll({
+    where: scoped(ctx, {
+      [Op.or]: [
+        { action: 'contacts.replaced', subjectType: 'Site', subjectId: siteId },
+        { action: { [Op.in]: single }, subjectType: 'Contact', details: { siteId } },
+      ],
+    }),
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+    limit: CONTACT_HISTORY_LIMIT,
+    transaction: ctx.transaction,
+  });
+  const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is string => Boolean(id)))];
+  const actors = actorIds.length ? await User.findAll({ where: scoped(ctx, { id: { [Op.in]: actorIds } }), attributes: ['id', 'name', 'role'], transaction: ctx.transaction }) : [];
+  const byId = new Map(actors.map((u) => [u.id, u]));
+  return events.map((event) => ({ event, actor: event.actorId ? (byId.get(event.actorId) ?? null) : null }));
 }

@@ -1,16 +1,23 @@
 /**
  * The household's side of the portal (issue 6): a service request from a client becomes a
- * `requested` job of the firm, and every active coordinator hears about it by e-mail.
+ * `requested` job of the firm, and every active coordinator hears about it by e-mail. A
+ * household's change to its emergency contacts is e-mailed to the owner and coordinators,
+ * who confirm it with the monitoring center.
  */
 import { Op } from 'sequelize';
+import { contactListsDiffer, describeListChange } from '@domain/contact-changes';
 import { type Ctx, scoped } from '../context';
 import type { AppDeps } from '../deps';
+import { householdContactsChangedEmail } from '../emails/templates';
 import { errors } from '../errors';
+import { Client } from '../models/Client';
+import type { EmergencyContact } from '../models/EmergencyContact';
 import { Job } from '../models/Job';
 import type { Site } from '../models/Site';
 import { User } from '../models/User';
 import { Zone } from '../models/Zone';
 import { recordAudit } from './audit-recorder';
+import { replaceContactList, type ContactList } from './contacts';
 import { checklistFor } from './jobs';
 
 export interface ServiceRequestInput {
@@ -65,7 +72,7 @@ export async function requestService(
   });
   const who = ctx.user?.name ?? 'A client';
   const subject = `Service request from ${who} — ${site.name}`;
-  const link = `${deps.appUrl}/jobs/${job.id}`;
+  const link = `${deps.appUrl}/app/jobs/${job.id}`;
   for (const coordinator of coordinators) {
     const lines = [
       `${who} asked for a service visit at ${site.name}.`,
@@ -80,6 +87,47 @@ export async function requestService(
     });
   }
   return job;
+}
+
+/**
+ * The household replaces its site's emergency contacts. When the list really changed, each
+ * active coordinator and the owner get an e-mail with the list before and now, to confirm
+ * with the monitoring center; a save that changes nothing e-mails nobody.
+ */
+export async function changeHouseholdContacts(
+  ctx: Ctx,
+  site: Site,
+  list: ContactList,
+  deps: Pick<AppDeps, 'mailer' | 'appUrl'>,
+): Promise<EmergencyContact[]> {
+  const { contacts, before, after } = await replaceContactList(ctx, site, list);
+  if (ctx.user?.role !== 'client' || !contactListsDiffer(before, after)) return contacts;
+
+  const options = { transaction: ctx.transaction ?? null };
+  const client = await Client.findOne({ where: scoped(ctx, { id: site.clientId }), attributes: ['id', 'name'], ...options });
+  const recipients = await User.findAll({
+    where: scoped(ctx, { role: { [Op.in]: ['owner', 'coordinator'] }, deactivatedAt: { [Op.is]: null } }),
+    ...options,
+  });
+  const householdName = client?.name ?? ctx.user.name;
+  const summary = describeListChange(before, after);
+  const link = `${deps.appUrl}/app/sites/${site.id}`;
+  for (const recipient of recipients) {
+    await deps.mailer.send(
+      householdContactsChangedEmail({
+        to: recipient.email,
+        householdName,
+        siteName: site.name,
+        summary,
+        before,
+        after,
+        monitoringCenterName: ctx.tenant?.monitoringCenterName ?? '',
+        monitoringCenterPhone: ctx.tenant?.monitoringCenterPhone ?? '',
+        link,
+      }),
+    );
+  }
+  return contacts;
 }
 
 function escapeHtml(value: string): string {

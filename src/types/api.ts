@@ -150,6 +150,23 @@ export interface ApiContact {
   altPhone: string;
 }
 
+/** A contact as a change recorded it; the array order is the calling order. */
+export type ApiContactSnapshot = Pick<ApiContact, 'name' | 'relation' | 'phone' | 'altPhone'>;
+
+/** One change to a site's emergency contacts (staff history). */
+export interface ApiContactChange {
+  id: string;
+  at: string;
+  action: string;
+  /** null when the person is no longer known to the firm */
+  actor: { name: string; role: string } | null;
+  /** made by the household in the portal: staff confirm it with the monitoring center */
+  byHousehold: boolean;
+  before: ApiContactSnapshot[] | null;
+  after: ApiContactSnapshot[] | null;
+  summary: string;
+}
+
 export interface ApiDocument {
   id: string;
   siteId: string;

@@ -616,6 +616,9 @@ describe('portal contacts', () => {
     renderPortal(`/portal/sites/${SITE_ID}/contacts`);
     expect(await screen.findByText('Dario Pike')).toBeInTheDocument();
     expect(screen.getByText(`Changes you save here go to ${FIRM_NAME}, who confirms them with the monitoring center. Until they do, the center may still call the people on the previous list.`)).toBeInTheDocument();
+    // the staff history of changes is not part of the portal
+    expect(screen.queryByRole('button', { name: /Show changes/ })).toBeNull();
+    expect(fetchMock.mock.calls.some(([url]) => url.endsWith('/contacts/changes'))).toBe(false);
 
     await userEvent.click(screen.getByRole('button', { name: 'Edit' }));
     await userEvent.click(screen.getByRole('button', { name: 'Add contact' }));

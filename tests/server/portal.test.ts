@@ -246,6 +246,8 @@ describe('portal: devices, service and service requests', () => {
     }
     expect(t.outbox.some((m) => m.to === gone.email)).toBe(false);
     expect(t.outbox.some((m) => m.to === f.technician.email)).toBe(false);
+    // the e-mail links to the job in the firm's workspace
+    expect(t.outbox.find((m) => m.to === f.coordinator.email)!.text).toContain(`http://mullion.test/app/jobs/${job!.id}`);
     // another client's site → 404
     const other = await portalFixture();
     expect((await v.post(`/api/portal/sites/${other.site.id}/service-requests`, { description: 'x', preferredTimes: 'y' })).status).toBe(404);

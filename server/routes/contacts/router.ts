@@ -7,8 +7,8 @@ import { errors } from '../../errors';
 import { inputOf, validate } from '../../middlewares/validate';
 import { EmergencyContact } from '../../models/EmergencyContact';
 import { Site } from '../../models/Site';
-import { presentContact } from '../../presenters/contact';
-import { addContact, listContacts, MAX_CONTACTS, removeContact, replaceContacts, updateContact } from '../../services/contacts';
+import { presentContact, presentContactChange } from '../../presenters/contact';
+import { addContact, contactChanges, listContacts, MAX_CONTACTS, removeContact, replaceContacts, updateContact } from '../../services/contacts';
 import { authorizeRecord, inTransaction, pageOf, requireFirm } from '../helpers';
 import { contactParams, siteContactsParams } from './schema';
 
@@ -52,6 +52,19 @@ export function contactsRouter(deps: AppDeps): Router {
     const site = await loadSite(req, params.siteId);
     authorizeContacts(req, 'read', site);
     res.json(listOf(await listContacts(req.ctx, site.id)));
+  });
+
+  /**
+   * Who changed the site's contacts and what changed, newest first (staff who may read the
+   * contacts; the household's own changes are marked so staff confirm them with the
+   * monitoring center).
+   */
+  router.get('/sites/:siteId/contacts/changes', validate({ params: siteContactsParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: siteContactsParams });
+    const site = await loadSite(req, params.siteId);
+    authorizeContacts(req, 'read', site);
+    const changes = await contactChanges(req.ctx, site.id);
+    res.json({ data: changes.map(presentContactChange) });
   });
 
   router.post('/sites/:siteId/contacts', validate({ params: siteContactsParams, body: contactSchema }), async (req, res) => {

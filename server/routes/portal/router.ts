@@ -17,11 +17,11 @@ import { Zone } from '../../models/Zone';
 import { portalFileUrl, presentPastVisit, presentPortalDevice, presentPortalDocument, presentPortalPlan, presentUpcomingVisit } from '../../presenters/portal';
 import { presentContact } from '../../presenters/contact';
 import { presentCoverage } from '../../presenters/premises';
-import { listContacts, replaceContacts } from '../../services/contacts';
+import { listContacts } from '../../services/contacts';
 import { coverageForSite } from '../../services/coverage';
 import { jobViews } from '../../services/jobs';
 import { safeFileName } from '../../services/documents';
-import { requestService } from '../../services/portal';
+import { changeHouseholdContacts, requestService } from '../../services/portal';
 import { todayIn, upkeepOf, zoneValuesOf } from '../../services/zones';
 import { inTransaction, nowOf, pageOf } from '../helpers';
 
@@ -214,7 +214,7 @@ export function portalRouter(deps: AppDeps): Router {
   router.put('/portal/sites/:siteId/contacts', validate({ params: siteParams, body: contactListSchema }), async (req, res) => {
     const { params, body } = inputOf(req, { params: siteParams, body: contactListSchema });
     const site = await loadOwnSite(req, params.siteId);
-    const contacts = await inTransaction(req, deps, (ctx) => replaceContacts(ctx, site, body));
+    const contacts = await inTransaction(req, deps, (ctx) => changeHouseholdContacts(ctx, site, body, deps));
     res.json({ data: contacts.map(presentContact) });
   });
 

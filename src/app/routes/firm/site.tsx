@@ -86,7 +86,7 @@ export default function SitePage() {
               </div>
             )}
           </Card>
-          <EmergencyContacts siteId={site.id} canEdit={ability.can('update', 'Contact')} />
+          <EmergencyContacts siteId={site.id} canEdit={ability.can('update', 'Contact')} timeZone={site.timeZone} />
           <Card title="Permit and contract">
             <dl>
               <Row label="Alarm permit">

@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SiteInput } from '@domain/schemas/site';
 import { api, uploadWithProgress } from '@/lib/api-client';
-import type { ApiContact, ApiDocument, ApiSite, ListResponse } from '@/types/api';
+import type { ApiContact, ApiContactChange, ApiDocument, ApiSite, ListResponse } from '@/types/api';
 
 export interface SiteFilters {
   page: number;
@@ -18,6 +18,7 @@ export const siteKeys = {
   details: () => [...siteKeys.all, 'detail'] as const,
   detail: (id: string) => [...siteKeys.details(), id] as const,
   contacts: (id: string) => [...siteKeys.detail(id), 'contacts'] as const,
+  contactChanges: (id: string) => [...siteKeys.detail(id), 'contact-changes'] as const,
   documents: (id: string) => [...siteKeys.detail(id), 'documents'] as const,
 };
 
@@ -44,6 +45,13 @@ export const contactsQuery = (siteId: string) =>
   queryOptions({
     queryKey: siteKeys.contacts(siteId),
     queryFn: ({ signal }) => api.get<{ data: ApiContact[] }>(`/api/sites/${siteId}/contacts`, signal).then((r) => r.data),
+  });
+
+/** Who changed the site's emergency contacts and what changed, newest first (staff only). */
+export const contactChangesQuery = (siteId: string) =>
+  queryOptions({
+    queryKey: siteKeys.contactChanges(siteId),
+    queryFn: ({ signal }) => api.get<{ data: ApiContactChange[] }>(`/api/sites/${siteId}/contacts/changes`, signal).then((r) => r.data),
   });
 
 export const documentsQuery = (siteId: string) =>
@@ -93,7 +101,10 @@ export function useReplaceContacts(siteId: string) {
   return useMutation({
     mutationFn: (contacts: Omit<ApiContact, 'id' | 'siteId' | 'position'>[]) =>
       api.put<{ data: ApiContact[] }>(`/api/sites/${siteId}/contacts`, { contacts }).then((r) => r.data),
-    onSuccess: (contacts) => queryClient.setQueryData(siteKeys.contacts(siteId), contacts),
+    onSuccess: (contacts) => {
+      queryClient.setQueryData(siteKeys.contacts(siteId), contacts);
+      return queryClient.invalidateQueries({ queryKey: siteKeys.contactChanges(siteId) });
+    },
   });
 }
 

@@ -1,7 +1,9 @@
-import { useState, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { useQuery, type UseMutationResult, type UseQueryResult } from '@tanstack/react-query';
-import { ArrowDown, ArrowUp, Pencil, Plus, Trash2 } from 'lucide-react';
+import { ArrowDown, ArrowUp, ChevronDown, ChevronRight, Pencil, Plus, Trash2 } from 'lucide-react';
 import { formatPhone } from '@domain/phone';
+import { ROLE_LABELS, ROLES } from '@domain/roles';
+import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { FormError } from '@/components/ui/form-field';
@@ -9,8 +11,9 @@ import { Input } from '@/components/ui/input';
 import { Skeleton } from '@/components/ui/skeleton';
 import { useToast } from '@/components/ui/toast';
 import { ApiError } from '@/lib/api-client';
-import type { ApiContact } from '@/types/api';
-import { contactsQuery, useReplaceContacts } from '../api/sites-queries';
+import { formatDateTime } from '@/lib/format';
+import type { ApiContact, ApiContactChange } from '@/types/api';
+import { contactChangesQuery, contactsQuery, useReplaceContacts } from '../api/sites-queries';
 
 /** One contact as the list is saved: the order of the list is the calling order. */
 export type ContactRow = Omit<ApiContact, 'id' | 'siteId' | 'position'>;
@@ -25,11 +28,63 @@ interface Draft {
 
 let nextKey = 1;
 
-/** The ordered list the monitoring center calls: first is called first. Edited as a whole. */
-export function EmergencyContacts({ siteId, canEdit }: { siteId: string; canEdit: boolean }) {
+/**
+ * The ordered list the monitoring center calls: first is called first. Edited as a whole.
+ * Staff also see who changed the list and what changed (the portal does not).
+ */
+export function EmergencyContacts({ siteId, canEdit, timeZone }: { siteId: string; canEdit: boolean; timeZone?: string }) {
   const contacts = useQuery(contactsQuery(siteId));
   const replace = useReplaceContacts(siteId);
-  return <EmergencyContactsEditor contacts={contacts} replace={replace} canEdit={canEdit} />;
+  return <EmergencyContactsEditor contacts={contacts} replace={replace} canEdit={canEdit} footer={<ContactChanges siteId={siteId} timeZone={timeZone} />} />;
+}
+
+function actorOf(change: ApiContactChange): string {
+  if (!change.actor) return change.byHousehold ? 'The household' : 'Someone no longer with the firm';
+  if (change.byHousehold) return `${change.actor.name} (the household)`;
+  const role = ROLES.find((r) => r === change.actor?.role);
+  return `${change.actor.name} (${role ? ROLE_LABELS[role] : change.actor.role})`;
+}
+
+/** The history of the list, newest first, folded away until asked for. */
+function ContactChanges({ siteId, timeZone }: { siteId: string; timeZone?: string | undefined }) {
+  const changes = useQuery(contactChangesQuery(siteId));
+  const [open, setOpen] = useState(false);
+  const listId = useId();
+  return (
+    <section aria-label="Changes" className="mt-4 border-t border-line pt-3">
+      {changes.isPending ? (
+        <Skeleton className="h-6 w-40" />
+      ) : changes.isError ? (
+        <p className="text-sm text-clay-600">{changes.error.message}</p>
+      ) : changes.data.length === 0 ? (
+        <p className="text-sm text-slate-500">No changes recorded yet.</p>
+      ) : (
+        <>
+          <Button variant="ghost" size="sm" className="-ml-2 px-2" aria-expanded={open} aria-controls={listId} onClick={() => setOpen((o) => !o)}>
+            {open ? <ChevronDown className="size-4" aria-hidden="true" /> : <ChevronRight className="size-4" aria-hidden="true" />}
+            {open ? 'Hide changes' : `Show changes (${changes.data.length})`}
+          </Button>
+          {open && (
+            <ol id={listId} aria-label="Changes to the emergency contacts" className="mt-2 space-y-3 text-sm">
+              {changes.data.map((change) => (
+                <li key={change.id} className="border-l-2 border-line pl-3">
+                  <p className="text-xs text-slate-500">
+                    {formatDateTime(change.at, timeZone)} · {actorOf(change)}
+                  </p>
+                  <p className="mt-0.5">{change.summary}</p>
+                  {change.byHousehold && (
+                    <Badge tone="warn" className="mt-1 whitespace-normal!">
+                      By the household — confirm with the monitoring center
+                    </Badge>
+                  )}
+                </li>
+              ))}
+            </ol>
+          )}
+        </>
+      )}
+    </section>
+  );
 }
 
 /** The list and its editor, for any source (the staff site page, the household's portal). */
@@ -38,6 +93,7 @@ export function EmergencyContactsEditor({
   replace,
   canEdit,
   note,
+  footer,
   savedMessage = 'Emergency contacts saved.',
 }: {
   contacts: UseQueryResult<ApiContact[]>;
@@ -45,6 +101,8 @@ export function EmergencyContactsEditor({
   canEdit: boolean;
   /** shown above the list (the portal says who confirms changes) */
   note?: ReactNode;
+  /** shown below the list (staff see the list's changes) */
+  footer?: ReactNode;
   savedMessage?: string;
 }) {
   const toast = useToast();
@@ -197,6 +255,7 @@ export function EmergencyContactsEditor({
           ))}
         </ol>
       )}
+      {footer}
     </Card>
   );
 }
