@@ -145,6 +145,7 @@ async function handle(event: Stripe.Event, deps: SyncDeps, at: Date, transaction
       const tenant = await findTenant({ tenantId: session.client_reference_id ?? session.metadata?.tenantId, customerId: idOf(session.customer) }, transaction);
       if (!tenant) return unknownFirm(event, deps);
       tenant.stripeCustomerId = idOf(session.customer) ?? tenant.stripeCustomerId;
+      if (tenant.pendingCheckoutSessionId === session.id) tenant.pendingCheckoutSessionId = null;
       const subscriptionId = idOf(session.subscription);
       if (checkoutSubscription) applySubscription(tenant, checkoutSubscription, deps, at);
       await audit(tenant, 'billing.checkout_completed', { plan: tenant.planKey, subscription: subscriptionId }, transaction);

@@ -36,6 +36,8 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
   declare pastDueSince: CreationOptional<Date | null>;
   declare currentPeriodEnd: CreationOptional<Date | null>;
   declare cancelAtPeriodEnd: CreationOptional<boolean>;
+  /** the latest Checkout Session started for the firm; a new checkout closes it first */
+  declare pendingCheckoutSessionId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -67,6 +69,7 @@ export class Tenant extends Model<InferAttributes<Tenant>, InferCreationAttribut
         pastDueSince: { type: DataTypes.DATE, allowNull: true },
         currentPeriodEnd: { type: DataTypes.DATE, allowNull: true },
         cancelAtPeriodEnd: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        pendingCheckoutSessionId: { type: DataTypes.STRING(120), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

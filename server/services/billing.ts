@@ -42,6 +42,22 @@ export function hasLiveSubscription(tenant: Pick<Tenant, 'stripeSubscriptionId' 
   return Boolean(tenant.stripeSubscriptionId) && !['canceled', 'incomplete_expired'].includes(tenant.subscriptionStatus ?? '');
 }
 
+/**
+ * Two checkouts open at once could both be paid and leave two subscriptions. So a new checkout
+ * first expires the firm's earlier one; if that one was paid meanwhile (its webhook not here
+ * yet), the new checkout is refused instead.
+ */
+async function closeEarlierCheckout(tenant: Tenant, config: BillingConfig): Promise<void> {
+  const earlier = tenant.pendingCheckoutSessionId;
+  if (!earlier) return;
+  const session = await callStripe('checking your earlier checkout', () => config.stripe.checkout.sessions.retrieve(earlier));
+  const paidFor = typeof session.subscription === 'string' ? session.subscription : (session.subscription?.id ?? null);
+  if (session.status === 'complete' && paidFor !== tenant.stripeSubscriptionId) {
+    throw errors.conflict('Your earlier checkout went through a moment ago. Reload the Billing page to see your plan.');
+  }
+  if (session.status === 'open') await callStripe('closing your earlier checkout', () => config.stripe.checkout.sessions.expire(earlier));
+}
+
 /** A Checkout Session in subscription mode for the chosen plan; the browser goes to its URL. */
 export async function startCheckout(tenant: Tenant, owner: User, planKey: PlanKey, deps: { billing: BillingConfig | undefined; appUrl: string }): Promise<string> {
   const config = billingOf(deps.billing);
@@ -51,6 +67,7 @@ export async function startCheckout(tenant: Tenant, owner: User, planKey: PlanKe
     throw errors.conflict('Your firm already has a subscription. Change plan or card from “Manage payment and plan” instead.');
   }
   const customer = await ensureCustomer(tenant, owner, config);
+  await closeEarlierCheckout(tenant, config);
   const session = await callStripe('starting the checkout', () =>
     config.stripe.checkout.sessions.create({
       mode: 'subscription',
@@ -64,6 +81,7 @@ export async function startCheckout(tenant: Tenant, owner: User, planKey: PlanKe
     }),
   );
   if (!session.url) throw errors.serviceUnavailable('Stripe did not return a checkout page. Try again in a minute.');
+  await Tenant.update({ pendingCheckoutSessionId: session.id }, { where: { id: tenant.id } });
   return session.url;
 }
 

@@ -701,6 +701,40 @@ describe('Checkout, the billing portal and invoices, end to end on the stand-in'
     expect(firm).toMatchObject({ state: 'active', planKey: 'bench', stripeCustomerId: customer });
   });
 
+  it('a second checkout closes the first, so two open checkouts can never become two subscriptions', async () => {
+    const { firm, owner } = await buildFirmWithStaff();
+    const v = await signedIn(owner);
+    const first = await v.post('/api/billing/checkout', { planKey: 'bench' });
+    expect(first.status).toBe(201);
+    const second = await v.post('/api/billing/checkout', { planKey: 'crew' });
+    expect(second.status).toBe(201);
+    expect(second.body.data.url).not.toBe(first.body.data.url);
+    // the first checkout page no longer takes a card
+    const late = await fetch(first.body.data.url as string);
+    expect(late.status).toBe(410);
+    expect((await payCheckout(second.body.data.url as string, PAYS)).status).toBe(303);
+    await firm.reload();
+    expect(firm).toMatchObject({ state: 'active', planKey: 'crew', pendingCheckoutSessionId: null });
+    expect(eventsOfCustomer(firm.stripeCustomerId!).filter((r) => r.event.type === 'customer.subscription.created')).toHaveLength(1);
+  });
+
+  it('a checkout paid a moment ago (its webhook not here yet) refuses a second one', async () => {
+    const { firm, owner } = await buildFirmWithStaff();
+    const v = await signedIn(owner);
+    const first = await v.post('/api/billing/checkout', { planKey: 'bench' });
+    b.standIn.setWebhookUrl(null); // the webhooks of the payment are held back
+    try {
+      expect((await payCheckout(first.body.data.url as string, PAYS)).status).toBe(303);
+    } finally {
+      b.standIn.setWebhookUrl(`${b.appUrl}/api/webhooks/stripe`);
+    }
+    const again = await v.post('/api/billing/checkout', { planKey: 'crew' });
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toMatch(/earlier checkout went through/);
+    await firm.reload();
+    expect(firm.state).toBe('trialing');
+  });
+
   it('refuses a plan that does not exist (400) without calling Stripe', async () => {
     const { firm, owner } = await buildFirmWithStaff();
     const v = await signedIn(owner);

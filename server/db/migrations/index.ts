@@ -10,6 +10,7 @@ import * as m20261201030000 from './20261201030000-create-jobs';
 import * as m20261201040000 from './20261201040000-client-invitations';
 import * as m20261202000000 from './20261202000000-firm-phone';
 import * as m20261202010000 from './20261202010000-billing';
+import * as m20261202020000 from './20261202020000-pending-checkout';
 
 export interface Migration {
   name: string;
@@ -25,4 +26,5 @@ export const MIGRATIONS: Migration[] = [
   { name: '20261201040000-client-invitations', ...m20261201040000 },
   { name: '20261202000000-firm-phone', ...m20261202000000 },
   { name: '20261202010000-billing', ...m20261202010000 },
+  { name: '20261202020000-pending-checkout', ...m20261202020000 },
 ];

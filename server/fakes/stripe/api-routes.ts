@@ -198,6 +198,11 @@ export function apiRouter({ billing, webhooks }: ApiDeps): Router {
     res.json(expand(session, expansions(paramsOf(req)), store));
   });
 
+  router.post('/checkout/sessions/:id/expire', (req, res) => {
+    const { session } = billing.expireCheckoutSession(req.params.id);
+    res.json(expand(session, expansions(paramsOf(req)), store));
+  });
+
   // ── subscriptions ──
   router.get('/subscriptions/:id', (req, res) => {
     res.json(expand(store.subscription(req.params.id), expansions(paramsOf(req)), store));

@@ -235,6 +235,17 @@ export class Billing {
     return record;
   }
 
+  /** Expires an open session at once (Stripe: POST /v1/checkout/sessions/:id/expire); its page stops working. */
+  expireCheckoutSession(id: string): CheckoutSessionRecord {
+    const record = this.checkoutSession(id);
+    if (record.session.status !== 'open') {
+      throw stripeErrors.invalidRequest(`Only Checkout Sessions with a status of open can be expired; this one is ${record.session.status}.`);
+    }
+    record.session.status = 'expired';
+    record.session.url = null;
+    return record;
+  }
+
   /** The payer submits a card on the checkout page. */
   payCheckout(sessionId: string, cardNumber: string): CheckoutOutcome {
     const record = this.checkoutSession(sessionId);
