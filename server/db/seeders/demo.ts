@@ -9,6 +9,7 @@ import { hashPassword } from '../../auth/passwords';
 import type { SecretBox } from '../../crypto/secret-box';
 import type { TenantFiles } from '../../storage/tenant-files';
 import { seedInstalledBase } from './demo-installed-base';
+import { drawEmblem } from './plan-image';
 import { seedFirmSubscriptionHistory, seedOtherSubscribers } from './demo-subscriptions';
 import { AuditEvent } from '../../models/AuditEvent';
 import { Tenant } from '../../models/Tenant';
@@ -36,6 +37,7 @@ const FIRMS = [
     phone: '+1 555 010 4100',
     monitoringCenterPhone: '+1 555 010 4400',
     accentColor: '#2f5d7c',
+    emblem: 'lantern' as const,
     staff: [
       { name: 'Ada Kestrel', role: 'owner' as const, local: 'ada' },
       { name: 'Marek Oduya', role: 'coordinator' as const, local: 'marek' },
@@ -56,6 +58,7 @@ const FIRMS = [
     phone: '+1 555 010 7700',
     monitoringCenterPhone: '+1 555 010 7788',
     accentColor: '#6b3f7a',
+    emblem: 'vale' as const,
     staff: [
       { name: 'Gwen Tamsin', role: 'owner' as const, local: 'gwen' },
       { name: 'Luis Ferrant', role: 'coordinator' as const, local: 'luis' },
@@ -98,6 +101,9 @@ export async function seedDemo(sequelize: Sequelize, { secrets, files, now = new
         },
         { transaction },
       );
+      // the firm's logo, for its portal and the households' e-mails
+      const logoFileId = await files.save(tenant.id, drawEmblem(firm.accentColor, firm.emblem), 'png');
+      await tenant.update({ logoFileId, logoContentType: 'image/png' }, { transaction });
       const technicianIds: string[] = [];
       let coordinatorId: string | null = null;
       for (const person of firm.staff) {

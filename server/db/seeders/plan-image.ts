@@ -106,3 +106,41 @@ export function drawPlan(width: number, height: number, rooms: readonly PlanRoom
   }
   return c.png();
 }
+
+/** "#2f5d7c" → [47, 93, 124] */
+function rgbOf(hex: string): Rgb {
+  const n = Number.parseInt(hex.replace('#', ''), 16);
+  return [(n >> 16) & 255, (n >> 8) & 255, n & 255];
+}
+
+/**
+ * An invented firm emblem for the demo, drawn from simple shapes in the firm's accent colour:
+ * `lantern` (a lantern with four panes) or `vale` (rolling hills under a sun).
+ */
+export function drawEmblem(accentHex: string, kind: 'lantern' | 'vale', size = 96): Buffer {
+  const c = new Canvas(size, size);
+  const accent = rgbOf(accentHex);
+  const white: Rgb = [255, 255, 255];
+  c.fill(0, 0, size, size, white);
+  const u = size / 12;
+  c.fill(Math.round(u), Math.round(u), Math.round(10 * u), Math.round(10 * u), accent);
+  if (kind === 'lantern') {
+    c.fill(Math.round(5 * u), Math.round(2 * u), Math.round(2 * u), Math.round(u), white); // handle
+    c.fill(Math.round(3.5 * u), Math.round(3 * u), Math.round(5 * u), Math.round(0.8 * u), white); // cap
+    c.outline(Math.round(4 * u), Math.round(4 * u), Math.round(4 * u), Math.round(5 * u), Math.max(2, Math.round(0.5 * u)), white); // frame
+    c.fill(Math.round(5.8 * u), Math.round(4 * u), Math.max(2, Math.round(0.4 * u)), Math.round(5 * u), white); // mullion
+    c.fill(Math.round(4 * u), Math.round(6.3 * u), Math.round(4 * u), Math.max(2, Math.round(0.4 * u)), white); // transom
+    c.fill(Math.round(3.5 * u), Math.round(9 * u), Math.round(5 * u), Math.round(0.8 * u), white); // base
+  } else {
+    for (let y = 0; y < size; y++)
+      for (let x = 0; x < size; x++) {
+        const inside = x >= u && x < 11 * u && y >= u && y < 11 * u;
+        if (!inside) continue;
+        const hill1 = y > 7.5 * u + 1.6 * u * Math.cos(((x - 4 * u) / (6 * u)) * Math.PI);
+        const hill2 = y > 8.6 * u + 1.2 * u * Math.cos(((x - 8.5 * u) / (5 * u)) * Math.PI);
+        const sun = (x - 7.8 * u) ** 2 + (y - 4.2 * u) ** 2 < (1.4 * u) ** 2;
+        if (hill1 || hill2 || sun) c.fill(x, y, 1, 1, white);
+      }
+  }
+  return c.png();
+}
