@@ -11,6 +11,9 @@ import autocannon from 'autocannon';
 import { readEnv } from '../../server/config/env';
 import { createMemoryMailer } from '../../server/emails/mailer';
 import { startServer } from '../../server/index';
+import { createSecretBox } from '../../server/crypto/secret-box';
+import { DEMO_PASSWORD, seedDemo } from '../../server/db/seeders/demo';
+import { TenantFiles } from '../../server/storage/tenant-files';
 
 /** The slowest acceptable 99th-percentile latency for these reads on loopback. */
 const P99_TARGET_MS = 200;
@@ -45,6 +48,25 @@ async function returningVisitorCookies(baseUrl: string): Promise<string> {
   return cookies.join('; ');
 }
 
+/** Cookies of a signed-in visitor: first visit, then sign-in with the CSRF token, as a browser does. */
+async function signedInCookies(baseUrl: string, email: string): Promise<string> {
+  const first = await fetch(`${baseUrl}/api/session`);
+  const { csrfToken } = (await first.json()) as { csrfToken: string };
+  const jar = new Map(first.headers.getSetCookie().map((c) => c.split(';')[0]!.split('=') as [string, string]));
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+  const res = await fetch(`${baseUrl}/api/session`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookie() },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
+  if (!res.ok) throw new Error(`Signing in as ${email} answered ${res.status}`);
+  for (const c of res.headers.getSetCookie()) {
+    const [k, v] = c.split(';')[0]!.split('=') as [string, string];
+    jar.set(k, v);
+  }
+  return cookie();
+}
+
 async function load(baseUrl: string, scenario: Scenario): Promise<Outcome> {
   // A short warm-up so the first measured requests do not pay for lazy initialisation.
   for (let i = 0; i < 20; i++) await (await fetch(`${baseUrl}${scenario.path}`, { headers: scenario.headers })).arrayBuffer();
@@ -77,10 +99,22 @@ async function main(): Promise<number> {
   const running = await startServer(env, { mailer: createMemoryMailer(), host: HOST });
   const baseUrl = `http://${HOST}:${running.port}`;
   try {
+    // The invented demo scenario, so the household's portal reads real-sized data.
+    await seedDemo(running.sequelize, { secrets: createSecretBox(env.dataEncryptionKey), files: new TenantFiles(path.resolve(env.tenantsDir)) });
+    const household = { cookie: await signedInCookies(baseUrl, 'dario.pike@homes.example') };
+    const sites = (await (await fetch(`${baseUrl}/api/portal/sites`, { headers: household })).json()) as { data: { id: string }[] };
+    const home = `/api/portal/sites/${sites.data[0]!.id}`;
+    const owner = { cookie: await signedInCookies(baseUrl, 'ada@lanternfield.example') };
     const scenarios: Scenario[] = [
       { name: 'GET /api/health', path: '/api/health' },
       { name: 'GET /api/session (first visit: new session)', path: '/api/session' },
       { name: 'GET /api/session (returning visitor)', path: '/api/session', headers: { cookie: await returningVisitorCookies(baseUrl) } },
+      { name: 'GET portal home of a household', path: home, headers: household },
+      { name: 'GET portal doors and windows', path: `${home}/coverage`, headers: household },
+      { name: 'GET portal devices', path: `${home}/devices`, headers: household },
+      { name: 'GET portal visits', path: `${home}/service`, headers: household },
+      { name: 'GET /api/billing (owner: plan and usage)', path: '/api/billing', headers: owner },
+      { name: 'GET /api/firm/business (owner)', path: '/api/firm/business', headers: owner },
     ];
     console.log(`Mullion bench: ${CONNECTIONS} connections, ${DURATION_SECONDS} s per endpoint, ${baseUrl}; p99 target ${P99_TARGET_MS} ms\n`);
     const outcomes: Outcome[] = [];

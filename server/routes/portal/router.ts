@@ -98,12 +98,18 @@ export function portalRouter(deps: AppDeps): Router {
   router.get('/portal/sites/:siteId', validate({ params: siteParams }), async (req, res) => {
     const { params } = inputOf(req, { params: siteParams });
     const site = await loadOwnSite(req, params.siteId);
-    const coverage = presentCoverage(await coverageForSite(req.ctx, site.id), { audience: 'client' });
     const now = nowOf(deps);
-    const next = await Job.findOne({
-      where: scoped(req.ctx, { siteId: site.id, state: { [Op.in]: ['scheduled'] }, scheduledStart: { [Op.gte]: now } }),
-      order: [['scheduledStart', 'ASC']],
-    });
+    // the three reads are independent: run them together
+    const [computed, next, devices] = await Promise.all([
+      coverageForSite(req.ctx, site.id),
+      Job.findOne({
+        where: scoped(req.ctx, { siteId: site.id, state: { [Op.in]: ['scheduled'] }, scheduledStart: { [Op.gte]: now } }),
+        order: [['scheduledStart', 'ASC']],
+        attributes: ['id', 'kind', 'scheduledStart'],
+      }),
+      devicesOf(req, site),
+    ]);
+    const coverage = presentCoverage(computed, { audience: 'client' });
     res.json({
       data: {
         site: presentPortalSite(site, req),
@@ -112,7 +118,7 @@ export function portalRouter(deps: AppDeps): Router {
           findings: coverage.findings.filter((f) => f.lifeSafety).map((f) => ({ code: f.code, severity: f.severity, message: f.message })),
           caution: coverage.caution,
         },
-        devicesDueSoon: (await devicesOf(req, site)).filter((d) => d.life.state === 'soon' || d.life.state === 'due'),
+        devicesDueSoon: devices.filter((d) => d.life.state === 'soon' || d.life.state === 'due'),
         nextVisit: next ? { kind: next.kind, scheduledStart: next.scheduledStart?.toISOString() ?? null } : null,
         firm: firmContactOf(req),
       },
