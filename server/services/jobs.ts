@@ -1,5 +1,5 @@
 /**
- * Jobs (product.md, "Jobs"; issue 5): create, change, move through the state machine of
+ * Jobs (product.md, "Jobs"): create, change, move through the state machine of
  * src/domain/jobs.ts, record walk tests, and gather what a job's JSON needs beyond its row
  * (site and technician names, walk-test rows, files, overlapping jobs of the technician).
  * Every write runs inside the caller's transaction and writes an audit event in it.

@@ -1,9 +1,10 @@
 /**
- * The household's side of the portal (issue 6): a service request from a client becomes a
+ * The household’s side of the portal: a service request from a client becomes a
  * `requested` job of the firm, and every active coordinator hears about it by e-mail. A
  * household's change to its emergency contacts is e-mailed to the owner and coordinators,
  * who confirm it with the monitoring center.
  */
+import type { ServiceRequestInput } from '@domain/schemas/portal';
 import { Op } from 'sequelize';
 import { contactListsDiffer, describeListChange } from '@domain/contact-changes';
 import { type Ctx, scoped } from '../context';
@@ -19,12 +20,6 @@ import { Zone } from '../models/Zone';
 import { recordAudit } from './audit-recorder';
 import { replaceContactList, type ContactList } from './contacts';
 import { checklistFor } from './jobs';
-
-export interface ServiceRequestInput {
-  description: string;
-  preferredTimes: string;
-  zoneId?: string | undefined;
-}
 
 function summaryOf(description: string): string {
   const firstLine = description.trim().split(/\r?\n/)[0] ?? '';

@@ -1,5 +1,5 @@
 /**
- * A site's service history (issue 5, "Service history"): completed and cancelled jobs, the
+ * A site's service history: completed and cancelled jobs, the
  * zone change log of the site's panels and the panel programming records, newest first, each
  * entry `{ type, at, title, detail, link: { kind, id } }`. Paged by merging the newest rows of
  * each source, so a page never reads more than page × size rows per source.

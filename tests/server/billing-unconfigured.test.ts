@@ -8,7 +8,7 @@ import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PLAN_KEYS } from '@domain/plans';
 import { StripeEvent } from '@server/models/StripeEvent';
-import { buildFirmWithStaff, TEST_PASSWORD } from '../support/factories';
+import { buildClientUser, buildFirmWithSite, buildFirmWithStaff, buildUser, TEST_PASSWORD } from '../support/factories';
 import { signedEvent, TEST_WEBHOOK_SECRET } from '../support/stripe';
 import { createTestApp, visitor, type TestApp, type Visitor } from '../support/test-app';
 
@@ -88,5 +88,34 @@ describe('billing without Stripe configured', () => {
     expect(res.status).toBe(503);
     expect(res.body.error).toMatchObject({ code: 'service_unavailable', message: expect.stringMatching(/Payments are not set up/) as string });
     expect(await StripeEvent.findByPk(event.id)).toBeNull();
+  });
+});
+
+describe('GET /api/operator/tenants/:tenantId/invoices', () => {
+  async function as(user: { email: string }): Promise<Visitor> {
+    const v = await visitor(t.app);
+    expect((await v.signIn(user.email, TEST_PASSWORD)).status).toBe(200);
+    return v;
+  }
+
+  it('the operator gets an empty list without Stripe; unknown firm 404; bad id 400; signed out 401', async () => {
+    const f = await buildFirmWithSite();
+    const operator = await as(await buildUser(null, 'operator'));
+    const res = await operator.get(`/api/operator/tenants/${f.firm.id}/invoices`);
+    expect(res.status).toBe(200);
+    expect(res.body.data).toEqual([]);
+    expect((await operator.get('/api/operator/tenants/00000000-0000-4000-8000-000000000000/invoices')).status).toBe(404);
+    const bad = await operator.get('/api/operator/tenants/not-an-id/invoices');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty('tenantId');
+    expect((await (await visitor(t.app)).get(`/api/operator/tenants/${f.firm.id}/invoices`)).status).toBe(401);
+  });
+
+  it('every firm role, and a household, gets 403 — for their own firm too', async () => {
+    const f = await buildFirmWithSite();
+    const household = await buildClientUser(f.firm, f.client);
+    for (const user of [f.owner, f.coordinator, f.technician, household]) {
+      expect((await (await as(user)).get(`/api/operator/tenants/${f.firm.id}/invoices`)).status).toBe(403);
+    }
   });
 });

@@ -77,6 +77,18 @@ describe('portal: shared documents', () => {
     expect((await v.get(`/api/portal/sites/${other.site.id}/documents`)).status).toBe(404);
   });
 
+  it('a shared document whose file is gone from storage answers 404, not a server error', async () => {
+    const f = await fixture();
+    const lost = await Document.create({
+      tenantId: f.firm.id, siteId: f.site.id, kind: 'permit', title: 'Lost permit', fileId: 'missing-file.pdf', contentType: 'application/pdf',
+      sizeBytes: 10, sharedWithClient: true, uploadedById: null,
+    });
+    const v = await signedIn(f.clientUser);
+    const res = await v.get(`/api/portal/sites/${f.site.id}/documents/${lost.id}/file`);
+    expect(res.status).toBe(404);
+    expect(res.body.error.message).toBe('No such document file.');
+  });
+
   it('the service history points the report at the portal download, which works for the client', async () => {
     const f = await fixture();
     const v = await signedIn(f.clientUser);

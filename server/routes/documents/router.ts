@@ -14,6 +14,7 @@ import { presentDocument } from '../../presenters/document';
 import { createDocument, deleteDocument, safeFileName, updateDocument } from '../../services/documents';
 import { sniffImage, sniffPdf } from '../../storage/tenant-files';
 import { authorizeRecord, inTransaction, pageOf, requireFirm } from '../helpers';
+import { sendStoredFile } from '../send-stored-file';
 import { documentListQuery, documentParams, siteDocumentsParams } from './schema';
 
 const SORTABLE = { createdAt: 'createdAt', title: 'title', kind: 'kind' } as const;
@@ -135,12 +136,14 @@ export function documentsRouter(deps: AppDeps): Router {
     const { params } = inputOf(req, { params: documentParams });
     const doc = await loadDocument(req, params.documentId);
     authorizeRecord(req, 'read', 'Document', doc.get({ plain: true }), 'document');
-    const data = await deps.files.read(doc.tenantId, doc.fileId);
-    res.set('Content-Type', doc.contentType);
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.set('Cache-Control', 'private, no-store');
-    res.attachment(safeFileName(doc.originalName || doc.title, doc.fileId.split('.').pop() ?? 'bin'));
-    res.send(data);
+    await sendStoredFile(res, deps.files, {
+      tenantId: doc.tenantId,
+      fileId: doc.fileId,
+      contentType: doc.contentType,
+      what: 'document file',
+      caching: 'no-store',
+      downloadName: safeFileName(doc.originalName || doc.title, doc.fileId.split('.').pop() ?? 'bin'),
+    });
   });
 
   router.patch('/documents/:documentId', validate({ params: documentParams, body: documentPatchSchema }), async (req, res) => {

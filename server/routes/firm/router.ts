@@ -11,6 +11,7 @@ import { presentTenant } from '../../presenters/tenant';
 import { recordAudit } from '../../services/audit-recorder';
 import { sniffImage } from '../../storage/tenant-files';
 import { authorizeRecord, inTransaction, nowOf, requireFirm } from '../helpers';
+import { sendStoredFile } from '../send-stored-file';
 
 /** The signed-in user's own firm: profile, portal branding, logo. */
 export function firmRouter(deps: AppDeps): Router {
@@ -102,11 +103,7 @@ export function firmRouter(deps: AppDeps): Router {
     const tenant = await loadFirm(req.ctx.tenantId!);
     authorizeRecord(req, 'read', 'Tenant', { id: tenant.id }, 'firm');
     if (!tenant.logoFileId || !tenant.logoContentType) throw errors.notFound('logo');
-    const data = await deps.files.read(tenant.id, tenant.logoFileId);
-    res.set('Content-Type', tenant.logoContentType);
-    res.set('Cache-Control', 'private, max-age=3600');
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.send(data);
+    await sendStoredFile(res, deps.files, { tenantId: tenant.id, fileId: tenant.logoFileId, contentType: tenant.logoContentType, what: 'logo', caching: 'private-hour' });
   });
 
   return router;

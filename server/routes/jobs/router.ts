@@ -28,6 +28,7 @@ import {
 } from '../../services/jobs';
 import { siteHistory } from '../../services/service-history';
 import { authorizeRecord, inTransaction, nowOf, pageOf, requireAbility, requireFirm } from '../helpers';
+import { sendStoredFile } from '../send-stored-file';
 import { documentParams, historyQuery, jobFileFields, jobParams, siteParams, transitionBody } from './schema';
 
 const SORTABLE = { scheduledStart: 'scheduledStart', createdAt: 'createdAt', state: 'state', kind: 'kind' } as const;
@@ -43,7 +44,7 @@ function orderOf(sort: string | undefined): [string, 'ASC' | 'DESC'] {
 const isTechnician = (req: Request) => req.user?.role === 'technician';
 
 /**
- * Jobs (api-resources.md, "Job"; issue 5): the list with filters, create, read, change, the
+ * Jobs (api-resources.md, "Job"): the list with filters, create, read, change, the
  * state machine's transitions (completion builds and e-mails the report), the walk test, files
  * and photos, the report download, photo thumbnails and a site's service history.
  *
@@ -68,15 +69,6 @@ export function jobsRouter(deps: AppDeps): Router {
     if (action === 'update' && !req.ability.can('update', tagged))
       throw errors.forbidden('This job is assigned to another technician: only its technician or the office can change it.');
     return job;
-  }
-
-  /** A stored file's bytes; a file gone from the disk (its document deleted, say) answers 404, not 500. */
-  async function readStored(tenantId: string, fileId: string, what: string): Promise<Buffer> {
-    try {
-      return await deps.files.read(tenantId, fileId);
-    } catch {
-      throw errors.notFound(what);
-    }
   }
 
   async function present(req: Request, job: Job) {
@@ -245,11 +237,7 @@ export function jobsRouter(deps: AppDeps): Router {
     if (!doc) throw errors.notFound('document');
     authorizeRecord(req, 'read', 'Document', doc.get({ plain: true }), 'document');
     if (!doc.thumbnailFileId) throw errors.notFound('thumbnail');
-    const data = await readStored(doc.tenantId, doc.thumbnailFileId, 'thumbnail');
-    res.set('Content-Type', 'image/jpeg');
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.set('Cache-Control', 'private, no-store');
-    res.send(data);
+    await sendStoredFile(res, deps.files, { tenantId: doc.tenantId, fileId: doc.thumbnailFileId, contentType: 'image/jpeg', what: 'thumbnail', caching: 'no-store' });
   });
 
   // --- Completion report -----------------------------------------------------------------------
@@ -259,12 +247,14 @@ export function jobsRouter(deps: AppDeps): Router {
     const job = await loadJob(req, params.jobId, 'read');
     if (!job.reportFileId) throw errors.notFound('completion report (the job is not completed yet)');
     const doc = await Document.findOne({ where: scoped(req.ctx, { jobId: job.id, fileId: job.reportFileId }) });
-    const data = await readStored(job.tenantId, job.reportFileId, 'completion report');
-    res.set('Content-Type', 'application/pdf');
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.set('Cache-Control', 'private, no-store');
-    res.attachment(doc?.originalName || 'completion-report.pdf');
-    res.send(data);
+    await sendStoredFile(res, deps.files, {
+      tenantId: job.tenantId,
+      fileId: job.reportFileId,
+      contentType: 'application/pdf',
+      what: 'completion report',
+      caching: 'no-store',
+      downloadName: doc?.originalName || 'completion-report.pdf',
+    });
   });
 
   // --- Service history of a site ---------------------------------------------------------------

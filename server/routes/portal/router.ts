@@ -24,6 +24,7 @@ import { safeFileName } from '../../services/documents';
 import { changeHouseholdContacts, requestService } from '../../services/portal';
 import { todayIn, upkeepOf, zoneValuesOf } from '../../services/zones';
 import { inTransaction, nowOf, pageOf } from '../helpers';
+import { sendStoredFile } from '../send-stored-file';
 
 const siteParams = z.object({ siteId: uuid });
 const documentParams = z.object({ siteId: uuid, documentId: uuid });
@@ -142,11 +143,7 @@ export function portalRouter(deps: AppDeps): Router {
     const site = await loadOwnSite(req, params.siteId);
     const floor = await Floor.findOne({ where: scoped(req.ctx, { id: params.floorId, siteId: site.id }) });
     if (!floor?.planImageId || !floor.planImageContentType) throw errors.notFound('floor plan');
-    const data = await deps.files.read(floor.tenantId, floor.planImageId);
-    res.set('Content-Type', floor.planImageContentType);
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.set('Cache-Control', 'private, max-age=3600');
-    res.send(data);
+    await sendStoredFile(res, deps.files, { tenantId: floor.tenantId, fileId: floor.planImageId, contentType: floor.planImageContentType, what: 'floor plan', caching: 'private-hour' });
   });
 
   /** The documents the firm shared with the household: site documents, job files and completion reports. */
@@ -169,12 +166,14 @@ export function portalRouter(deps: AppDeps): Router {
     const site = await loadOwnSite(req, params.siteId);
     const doc = await Document.findOne({ where: scoped(req.ctx, { id: params.documentId, siteId: site.id, sharedWithClient: true }) });
     if (!doc) throw errors.notFound('document');
-    const data = await deps.files.read(doc.tenantId, doc.fileId);
-    res.set('Content-Type', doc.contentType);
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.set('Cache-Control', 'private, no-store');
-    res.attachment(safeFileName(doc.originalName || doc.title, doc.fileId.split('.').pop() ?? 'bin'));
-    res.send(data);
+    await sendStoredFile(res, deps.files, {
+      tenantId: doc.tenantId,
+      fileId: doc.fileId,
+      contentType: doc.contentType,
+      what: 'document file',
+      caching: 'no-store',
+      downloadName: safeFileName(doc.originalName || doc.title, doc.fileId.split('.').pop() ?? 'bin'),
+    });
   });
 
   router.get('/portal/sites/:siteId/devices', validate({ params: siteParams }), async (req, res) => {

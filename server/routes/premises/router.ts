@@ -31,6 +31,7 @@ import {
 import { zoneViewContext } from '../../services/zones';
 import { sniffImage } from '../../storage/tenant-files';
 import { authorizeRecord, inTransaction, nowOf, pageOf, requireFirm } from '../helpers';
+import { sendStoredFile } from '../send-stored-file';
 import { loadZone } from '../panels/load';
 import { zoneParams } from '../zones/schema';
 import { loadFloor, loadOpening, loadPremisesSite, loadRoom } from './load';
@@ -147,12 +148,8 @@ export function premisesRouter(deps: AppDeps): Router {
     const { params } = inputOf(req, { params: floorParams });
     const floor = await loadFloor(req, params.floorId, 'read');
     if (!floor.planImageId || !floor.planImageContentType) throw errors.notFound('floor plan');
-    const data = await deps.files.read(floor.tenantId, floor.planImageId);
-    res.set('Content-Type', floor.planImageContentType);
-    res.set('X-Content-Type-Options', 'nosniff');
     // the address changes with the image (?v=…), so the browser may keep it a while
-    res.set('Cache-Control', 'private, max-age=3600');
-    res.send(data);
+    await sendStoredFile(res, deps.files, { tenantId: floor.tenantId, fileId: floor.planImageId, contentType: floor.planImageContentType, what: 'floor plan', caching: 'private-hour' });
   });
 
   router.delete('/floors/:floorId/plan', requireFirm, validate({ params: floorParams }), async (req, res) => {

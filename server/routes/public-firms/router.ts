@@ -6,6 +6,7 @@ import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
 import { inputOf, validate } from '../../middlewares/validate';
 import { Tenant } from '../../models/Tenant';
+import { sendStoredFile } from '../send-stored-file';
 
 const shortNameParams = z.object({
   shortName: z.string().trim().toLowerCase().max(60).regex(SHORT_NAME_PATTERN, 'A portal address uses lowercase letters, digits and hyphens.'),
@@ -53,11 +54,7 @@ export function publicFirmsRouter(deps: AppDeps): Router {
     const { params } = inputOf(req, { params: shortNameParams });
     const tenant = await findFirm(params.shortName);
     if (!tenant.logoFileId || !tenant.logoContentType) throw errors.notFound('logo');
-    const data = await deps.files.read(tenant.id, tenant.logoFileId);
-    res.set('Content-Type', tenant.logoContentType);
-    res.set('Cache-Control', 'public, max-age=86400');
-    res.set('X-Content-Type-Options', 'nosniff');
-    res.send(data);
+    await sendStoredFile(res, deps.files, { tenantId: tenant.id, fileId: tenant.logoFileId, contentType: tenant.logoContentType, what: 'logo', caching: 'public-day' });
   });
 
   return router;
