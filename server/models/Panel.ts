@@ -1,5 +1,6 @@
 import { DataTypes, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { CommPath } from '@domain/devices';
+import type { PanelOccupancy } from '@domain/panel-power';
 import type { PanelSettings } from '@domain/schemas/panel';
 import { TenantModel, initTenantModel } from './base/TenantModel';
 
@@ -16,6 +17,12 @@ export class Panel extends TenantModel<InferAttributes<Panel>, InferCreationAttr
   declare commPath: CommPath;
   declare installedOn: CreationOptional<string | null>;
   declare settings: PanelSettings;
+  declare occupancy: CreationOptional<PanelOccupancy>;
+  declare standbyCurrentMa: CreationOptional<number | null>;
+  declare alarmCurrentMa: CreationOptional<number | null>;
+  declare batteryAh: CreationOptional<number | null>;
+  declare batteryManufacturedOn: CreationOptional<string | null>;
+  declare pathFailureReportMin: CreationOptional<number | null>;
   declare programmedAt: CreationOptional<Date | null>;
   declare changedSinceProgrammed: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
@@ -35,6 +42,12 @@ export class Panel extends TenantModel<InferAttributes<Panel>, InferCreationAttr
         commPath: { type: DataTypes.STRING(20), allowNull: false },
         installedOn: { type: DataTypes.DATEONLY, allowNull: true },
         settings: { type: DataTypes.JSON, allowNull: false },
+        occupancy: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'household' },
+        standbyCurrentMa: { type: DataTypes.DOUBLE, allowNull: true },
+        alarmCurrentMa: { type: DataTypes.DOUBLE, allowNull: true },
+        batteryAh: { type: DataTypes.DOUBLE, allowNull: true },
+        batteryManufacturedOn: { type: DataTypes.DATEONLY, allowNull: true },
+        pathFailureReportMin: { type: DataTypes.INTEGER, allowNull: true },
         programmedAt: { type: DataTypes.DATE, allowNull: true },
         changedSinceProgrammed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         createdAt: DataTypes.DATE,

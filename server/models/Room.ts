@@ -12,6 +12,12 @@ export class Room extends TenantModel<InferAttributes<Room>, InferCreationAttrib
   declare kind: RoomKind;
   declare fuelBurningAppliance: CreationOptional<boolean>;
   declare attachedGarage: CreationOptional<boolean>;
+  /** a bedroom: the hall or landing that serves its sleeping area */
+  declare servedByHallId: CreationOptional<string | null>;
+  /** a bedroom: its door confirmed within 21 ft of that hall's alarm, along the path of travel */
+  declare hallWithin21FtConfirmed: CreationOptional<boolean>;
+  /** a bathroom: the bedroom it is attached to */
+  declare attachedToBedroomId: CreationOptional<string | null>;
   declare position: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -27,6 +33,9 @@ export class Room extends TenantModel<InferAttributes<Room>, InferCreationAttrib
         kind: { type: DataTypes.STRING(20), allowNull: false },
         fuelBurningAppliance: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         attachedGarage: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        servedByHallId: { type: DataTypes.UUID, allowNull: true },
+        hallWithin21FtConfirmed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        attachedToBedroomId: { type: DataTypes.UUID, allowNull: true },
         position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

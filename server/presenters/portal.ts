@@ -1,4 +1,4 @@
-import { DEVICE_TYPE_LABELS, type ZoneType } from '@domain/devices';
+import { DEVICE_TYPE_LABELS, EQUIPMENT_DEVICE_TYPES, isLifeSafetyDevice, type DeviceType, type ZoneType } from '@domain/devices';
 import type { DeviceLife } from '@domain/device-life';
 import { JOB_KIND_LABELS } from '@domain/jobs';
 import { DOCUMENT_KIND_LABELS } from '@domain/schemas/document';
@@ -7,34 +7,92 @@ import type { Floor } from '../models/Floor';
 import type { Job } from '../models/Job';
 import type { Zone } from '../models/Zone';
 
-const WHEN_ARMED: Record<ZoneType, string> = {
-  entry_exit: 'When the alarm is set, opening it starts the entry countdown so you can switch the alarm off.',
-  perimeter: 'When the alarm is set, opening it sounds the alarm straight away.',
-  interior_follower: 'When the alarm is set, it sounds the alarm unless you came in through the door with the countdown.',
-  interior_instant: 'When the alarm is set, movement here sounds the alarm straight away.',
-  fire_24h: 'Always on, even when the alarm is off: it sounds the fire alarm and calls for help.',
-  co_24h: 'Always on, even when the alarm is off: it warns of carbon monoxide and calls for help.',
-  panic_audible: 'Always on: pressing it sounds the alarm and calls for help.',
-  panic_silent: 'Always on: pressing it calls for help quietly, without a siren.',
-  water_24h: 'Always on: it lets you and the monitoring centre know about a leak.',
-  temperature_24h: 'Always on: it lets you and the monitoring centre know when it gets too hot or too cold.',
-  monitor_only: 'It only chimes or tells you; it never sounds the alarm.',
+/**
+ * What a zone does, in plain words for the household, judged on how it is programmed: "calls
+ * for help" only when it reports to the monitoring center. Keyed by zone type.
+ */
+const WHEN_ARMED: Record<ZoneType, { reported: string; notReported: string }> = {
+  entry_exit: {
+    reported: 'When the alarm is set, opening it starts the entry countdown so you can switch the alarm off.',
+    notReported: 'When the alarm is set, opening it starts the entry countdown so you can switch the alarm off. It does not call the monitoring center.',
+  },
+  perimeter: {
+    reported: 'When the alarm is set, opening it sounds the alarm straight away.',
+    notReported: 'When the alarm is set, opening it sounds the alarm straight away. It does not call the monitoring center.',
+  },
+  interior_follower: {
+    reported: 'When the alarm is set, it sounds the alarm unless you came in through the door with the countdown.',
+    notReported: 'When the alarm is set, it sounds the alarm unless you came in through the door with the countdown. It does not call the monitoring center.',
+  },
+  interior_instant: {
+    reported: 'When the alarm is set, movement here sounds the alarm straight away.',
+    notReported: 'When the alarm is set, movement here sounds the alarm straight away. It does not call the monitoring center.',
+  },
+  fire_24h: {
+    reported: 'Always on, even when the alarm is off: it sounds the fire alarm and the monitoring center is called.',
+    notReported: 'Always on, even when the alarm is off: it sounds the fire alarm, but the monitoring center is not called.',
+  },
+  co_24h: {
+    reported: 'Always on, even when the alarm is off: it warns of carbon monoxide and the monitoring center is called.',
+    notReported: 'Always on, even when the alarm is off: it warns of carbon monoxide, but the monitoring center is not called.',
+  },
+  panic_audible: {
+    reported: 'Always on: pressing it sounds the alarm and calls for help.',
+    notReported: 'Always on: pressing it sounds the alarm. It does not call the monitoring center.',
+  },
+  panic_silent: {
+    reported: 'Always on: pressing it calls for help quietly, without a siren.',
+    notReported: 'Always on: pressing it does not sound a siren and does not call the monitoring center. Ask your alarm firm about it.',
+  },
+  water_24h: {
+    reported: 'Always on: it lets you and the monitoring center know about a leak.',
+    notReported: 'Always on: it lets you know about a leak. It does not call the monitoring center.',
+  },
+  temperature_24h: {
+    reported: 'Always on: it lets you and the monitoring center know when it gets too hot or too cold.',
+    notReported: 'Always on: it lets you know when it gets too hot or too cold. It does not call the monitoring center.',
+  },
+  monitor_only: {
+    reported: 'It chimes or shows on the keypad; it does not set off the alarm.',
+    notReported: 'It chimes or shows on the keypad; it does not set off the alarm and does not call the monitoring center.',
+  },
 };
 
-/** What a zone does when the alarm is set, in plain words for the household. */
-export function whenArmedOf(zoneType: ZoneType): string {
-  return WHEN_ARMED[zoneType] ?? 'Ask your alarm firm what this device does.';
+/** Keyfobs, keypads and sirens are equipment: what each is for, whatever zone it was enrolled on. */
+const EQUIPMENT_WORDS: Partial<Record<DeviceType, string>> = {
+  keyfob: 'A remote control: it sets and unsets the alarm from your key ring.',
+  keypad: 'Where you set and unset the alarm and see what it is doing.',
+  siren: 'It sounds when the alarm goes off.',
+};
+
+/** The words for a smoke, heat or CO device that is not programmed to protect. */
+const NOT_PROTECTING = 'It is not set up to raise the alarm and call for help, so it does not count as protection. Ask your alarm firm to change how it is programmed.';
+
+/** What a device does when the alarm is set, in plain words for the household, as programmed. */
+export function whenArmedOf(zone: Pick<Zone, 'deviceType' | 'zoneType' | 'reportsToMonitoring'>, protecting = true): string {
+  const equipment = EQUIPMENT_WORDS[zone.deviceType];
+  if (equipment && EQUIPMENT_DEVICE_TYPES.includes(zone.deviceType)) return equipment;
+  if (isLifeSafetyDevice(zone.deviceType) && !protecting) return NOT_PROTECTING;
+  const words = WHEN_ARMED[zone.zoneType];
+  if (!words) return 'Ask your alarm firm what this device does.';
+  return zone.reportsToMonitoring ? words.reported : words.notReported;
 }
 
-/** A device in client terms: no serial, no input, no panel internals. */
-export function presentPortalDevice(zone: Zone, life: DeviceLife) {
+/**
+ * A device in client terms: no serial, no input, no panel internals. `lifeSafety` marks smoke,
+ * heat and CO devices (the page shows the caution beside them); `protects` is false for one whose
+ * zone is not programmed to protect.
+ */
+export function presentPortalDevice(zone: Zone, life: DeviceLife, protecting = true) {
   return {
     id: zone.id,
     description: zone.description,
     kind: DEVICE_TYPE_LABELS[zone.deviceType] ?? zone.deviceType,
-    whenArmed: whenArmedOf(zone.zoneType),
+    whenArmed: whenArmedOf(zone, protecting),
     chime: Boolean(zone.chime),
-    life: { state: life.state, batteryDueOn: life.batteryDueOn, endOfLifeOn: life.endOfLifeOn },
+    lifeSafety: isLifeSafetyDevice(zone.deviceType),
+    protects: !isLifeSafetyDevice(zone.deviceType) || protecting,
+    life: { state: life.state, batteryDueOn: life.batteryDueOn, endOfLifeOn: life.endOfLifeOn, endOfLifeBasis: life.endOfLifeBasis },
   };
 }
 export type PresentedPortalDevice = ReturnType<typeof presentPortalDevice>;

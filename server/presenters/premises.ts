@@ -37,6 +37,9 @@ export function presentRoom(room: Room) {
     kind: room.kind,
     fuelBurningAppliance: Boolean(room.fuelBurningAppliance),
     attachedGarage: Boolean(room.attachedGarage),
+    servedByHallId: room.servedByHallId ?? null,
+    hallWithin21FtConfirmed: Boolean(room.hallWithin21FtConfirmed),
+    attachedToBedroomId: room.attachedToBedroomId ?? null,
     createdAt: room.createdAt.toISOString(),
     updatedAt: room.updatedAt.toISOString(),
   };
@@ -94,10 +97,12 @@ export function presentPremises(premises: SitePremises) {
 }
 
 /**
- * A site's coverage (api-resources.md, "Coverage"). Nothing in it is staff-only (zone
- * descriptions are what the household calls the devices), so the portal presents it the same.
+ * A site's coverage (api-resources.md, "Coverage"). Staff get each finding's rule, source and
+ * evidence (public text, memory or trade practice). Households get the finding in plain words
+ * and its rule, never the source notes or anything marked as known from memory.
  */
-export function presentCoverage(coverage: SiteCoverage, _options: { audience: 'staff' | 'client' } = { audience: 'staff' }) {
+export function presentCoverage(coverage: SiteCoverage, options: { audience: 'staff' | 'client' } = { audience: 'staff' }) {
+  const staff = options.audience === 'staff';
   return {
     openings: {
       total: coverage.openings.total,
@@ -109,10 +114,11 @@ export function presentCoverage(coverage: SiteCoverage, _options: { audience: 's
       code: f.code,
       severity: f.severity,
       rule: f.rule,
-      source: f.source,
+      ...(staff ? { source: f.source, evidence: f.evidence } : {}),
       message: f.message,
       floorId: f.floorId,
       roomId: f.roomId,
+      zoneId: f.zoneId,
       lifeSafety: f.lifeSafety,
     })),
     caution: coverage.caution,
@@ -133,7 +139,7 @@ export function presentCoverage(coverage: SiteCoverage, _options: { audience: 's
           protected: o.protected,
           zoneDescription: o.zoneDescription,
         })),
-        devices: room.devices.map((d) => ({ zoneId: d.zoneId, description: d.description, deviceType: d.deviceType })),
+        devices: room.devices.map((d) => ({ zoneId: d.zoneId, description: d.description, deviceType: d.deviceType, counts: d.counts })),
       })),
     })),
   };

@@ -39,6 +39,8 @@ export function presentZone(zone: Zone, view: ZoneViewContext) {
     manufacturedOn: values.manufacturedOn,
     pin: pinOf(zone),
     life: extra.life,
+    /** how a smoke, heat or CO device's zone keeps it from protecting, and what to change (empty when it protects) */
+    lifeSafetyProblems: extra.lifeSafetyProblems.map((p) => ({ code: p.code, field: p.field, what: p.what, fix: p.fix })),
     elsewhere: extra.elsewhere.map((place) => ({
       zoneId: place.zoneId,
       panelId: place.panelId,

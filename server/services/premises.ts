@@ -13,6 +13,8 @@ import { LIMITS } from '@domain/limits';
 import { Op, type WhereOptions } from 'sequelize';
 import { type floorPatchSchema, type floorSchema, type openingPatchSchema, type openingSchema, type pinSchema, type roomPatchSchema, type roomSchema } from '@domain/schemas/premises';
 import { zoneChangeSet } from '@domain/zones';
+import { canServeSleepingArea } from '@domain/coverage';
+import { ROOM_KIND_LABELS, type RoomKind } from '@domain/premises';
 import type { z } from 'zod';
 import { type Ctx, scoped } from '../context';
 import { errors } from '../errors';
@@ -188,6 +190,7 @@ export async function deleteFloor(ctx: Ctx, floor: Floor): Promise<string | null
     : [];
   const openingIds = openings.map((o) => o.id);
   const zonesUnlinked = await unlinkZones(ctx, { siteId: floor.siteId, roomIds, openingIds, floorId: floor.id });
+  await unlinkRooms(ctx, floor.siteId, { halls: roomIds, bedrooms: roomIds });
   const planImageId = floor.planImageId ?? null;
   await floor.destroy(tx(ctx));
   await recordAudit(ctx, {
@@ -237,9 +240,74 @@ export async function removeFloorPlan(ctx: Ctx, floor: Floor): Promise<string | 
 // ---------------------------------------------------------------------------------------------
 
 const GARAGE_ONLY = 'Only a garage can be an attached garage.';
+const BEDROOM_ONLY = 'Only a bedroom is served by a hall or landing.';
+const BATH_ONLY = 'Only a bathroom can be attached to a bedroom.';
+
+/** The links of a room to other rooms, as they will be after a create or a change. */
+interface RoomLinks {
+  servedByHallId: string | null;
+  hallWithin21FtConfirmed: boolean;
+  attachedToBedroomId: string | null;
+}
+
+/** Another room of the same site, or a 400 naming the field. */
+async function otherRoomOfSite(ctx: Ctx, siteId: string, selfId: string | null, roomId: string, field: string): Promise<Room> {
+  const other = await Room.findOne({ where: scoped(ctx, { id: roomId, siteId }), attributes: ['id', 'kind', 'name'], ...tx(ctx) });
+  if (!other || other.id === selfId) {
+    const message = other ? 'A room cannot point at itself.' : 'Choose a room of this site.';
+    throw errors.validation(`${field}: ${message}`, { [field]: message });
+  }
+  return other;
+}
+
+/**
+ * Checks a room's links to other rooms: only a bedroom names the hall serving its sleeping area,
+ * and that hall is a room people pass through to the bedrooms (not a kitchen, bathroom, garage,
+ * utility room or another bedroom); only a bathroom is attached to a bedroom, and that room is
+ * a bedroom. Each refusal is a 400 naming the field. The 21 ft confirmation goes with the hall:
+ * without a hall it is false.
+ */
+async function checkRoomLinks(ctx: Ctx, siteId: string, selfId: string | null, kind: RoomKind, links: RoomLinks): Promise<RoomLinks> {
+  if (links.servedByHallId !== null) {
+    if (kind !== 'bedroom') throw errors.validation(`servedByHallId: ${BEDROOM_ONLY}`, { servedByHallId: BEDROOM_ONLY });
+    const hall = await otherRoomOfSite(ctx, siteId, selfId, links.servedByHallId, 'servedByHallId');
+    if (!canServeSleepingArea(hall.kind)) {
+      const message = `${hall.name} is a ${ROOM_KIND_LABELS[hall.kind].toLowerCase()}; an alarm there does not stand in for one by the bedrooms. Choose the hall or landing outside them.`;
+      throw errors.validation(`servedByHallId: ${message}`, { servedByHallId: message });
+    }
+  }
+  if (links.attachedToBedroomId !== null) {
+    if (kind !== 'bath') throw errors.validation(`attachedToBedroomId: ${BATH_ONLY}`, { attachedToBedroomId: BATH_ONLY });
+    const bedroom = await otherRoomOfSite(ctx, siteId, selfId, links.attachedToBedroomId, 'attachedToBedroomId');
+    if (bedroom.kind !== 'bedroom') {
+      const message = `${bedroom.name} is not a bedroom. Choose the bedroom this bathroom opens into.`;
+      throw errors.validation(`attachedToBedroomId: ${message}`, { attachedToBedroomId: message });
+    }
+  }
+  return { ...links, hallWithin21FtConfirmed: links.servedByHallId !== null && links.hallWithin21FtConfirmed };
+}
+
+/**
+ * Clears the links other rooms of the site hold to rooms that are gone or can no longer serve:
+ * bedrooms served by them lose their hall (and its 21 ft confirmation), bathrooms attached to
+ * them are no longer attached.
+ */
+async function unlinkRooms(ctx: Ctx, siteId: string, gone: { halls: string[]; bedrooms: string[] }): Promise<void> {
+  if (gone.halls.length > 0) {
+    await Room.update({ servedByHallId: null, hallWithin21FtConfirmed: false }, { where: scoped(ctx, { siteId, servedByHallId: { [Op.in]: gone.halls } }), ...tx(ctx) });
+  }
+  if (gone.bedrooms.length > 0) {
+    await Room.update({ attachedToBedroomId: null }, { where: scoped(ctx, { siteId, attachedToBedroomId: { [Op.in]: gone.bedrooms } }), ...tx(ctx) });
+  }
+}
 
 export async function createRoom(ctx: Ctx, floor: Floor, input: RoomInput): Promise<Room> {
   if (input.attachedGarage && input.kind !== 'garage') throw errors.validation(`attachedGarage: ${GARAGE_ONLY}`, { attachedGarage: GARAGE_ONLY });
+  const links = await checkRoomLinks(ctx, floor.siteId, null, input.kind, {
+    servedByHallId: input.servedByHallId,
+    hallWithin21FtConfirmed: input.hallWithin21FtConfirmed,
+    attachedToBedroomId: input.attachedToBedroomId,
+  });
   const room = await Room.create(
     {
       tenantId: scoped(ctx).tenantId,
@@ -249,6 +317,7 @@ export async function createRoom(ctx: Ctx, floor: Floor, input: RoomInput): Prom
       kind: input.kind,
       fuelBurningAppliance: input.fuelBurningAppliance,
       attachedGarage: input.attachedGarage,
+      ...links,
       position: await nextRoomPosition(ctx, floor.id),
     },
     tx(ctx),
@@ -260,7 +329,8 @@ export async function createRoom(ctx: Ctx, floor: Floor, input: RoomInput): Prom
 /**
  * Changes a room; `floorId` moves it (with its openings) to another floor of the same site —
  * any other floor id is a 400 naming `floorId`. A room that stops being a garage stops being
- * an attached garage.
+ * an attached garage; one that stops being a bedroom loses its hall (and its bathrooms their
+ * link to it); one that can no longer serve a sleeping area stops serving one.
  */
 export async function updateRoom(ctx: Ctx, room: Room, patch: RoomPatch): Promise<Room> {
   const values: Partial<RoomPatch> & { position?: number } = definedOnly(patch);
@@ -269,6 +339,20 @@ export async function updateRoom(ctx: Ctx, room: Room, patch: RoomPatch): Promis
     if (values.attachedGarage) throw errors.validation(`attachedGarage: ${GARAGE_ONLY}`, { attachedGarage: GARAGE_ONLY });
     if (room.attachedGarage) values.attachedGarage = false;
   }
+  const current: RoomLinks = {
+    servedByHallId: room.servedByHallId ?? null,
+    hallWithin21FtConfirmed: Boolean(room.hallWithin21FtConfirmed),
+    attachedToBedroomId: room.attachedToBedroomId ?? null,
+  };
+  const hallChanged = values.servedByHallId !== undefined && values.servedByHallId !== current.servedByHallId;
+  const wanted: RoomLinks = {
+    // links the new kind cannot have fall away unless the patch sets them (then they are refused)
+    servedByHallId: values.servedByHallId !== undefined ? values.servedByHallId : kind === 'bedroom' ? current.servedByHallId : null,
+    // a new hall needs its own confirmation
+    hallWithin21FtConfirmed: values.hallWithin21FtConfirmed ?? (hallChanged ? false : current.hallWithin21FtConfirmed),
+    attachedToBedroomId: values.attachedToBedroomId !== undefined ? values.attachedToBedroomId : kind === 'bath' ? current.attachedToBedroomId : null,
+  };
+  Object.assign(values, await checkRoomLinks(ctx, room.siteId, room.id, kind, wanted));
   if (values.floorId !== undefined && values.floorId !== room.floorId) {
     const floor = await floorOfSiteOrRefuse(ctx, room.siteId, values.floorId);
     values.position = await nextRoomPosition(ctx, floor.id);
@@ -276,15 +360,20 @@ export async function updateRoom(ctx: Ctx, room: Room, patch: RoomPatch): Promis
   const changed = changedKeys(room.get({ plain: true }), values).filter((key) => key !== 'position');
   if (changed.length === 0) return room;
   await room.update(values, tx(ctx));
+  await unlinkRooms(ctx, room.siteId, {
+    halls: canServeSleepingArea(kind) ? [] : [room.id],
+    bedrooms: kind === 'bedroom' ? [] : [room.id],
+  });
   await recordAudit(ctx, { action: 'room.updated', subjectType: 'Room', subjectId: room.id, details: { siteId: room.siteId, changed } });
   return room;
 }
 
-/** Deletes a room with its openings and unlinks the zones that pointed at them. */
+/** Deletes a room with its openings and unlinks the zones and rooms that pointed at them. */
 export async function deleteRoom(ctx: Ctx, room: Room): Promise<void> {
   const openings = await Opening.findAll({ where: scoped(ctx, { roomId: room.id }), attributes: ['id'], ...tx(ctx) });
   const openingIds = openings.map((o) => o.id);
   const zonesUnlinked = await unlinkZones(ctx, { siteId: room.siteId, roomIds: [room.id], openingIds });
+  await unlinkRooms(ctx, room.siteId, { halls: [room.id], bedrooms: [room.id] });
   await room.destroy(tx(ctx));
   await recordAudit(ctx, {
     action: 'room.deleted',

@@ -10,7 +10,8 @@
  */
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
-import { type Cp01Finding, type PanelSettings } from '@domain/cp01';
+import { type PanelSettings } from '@domain/cp01';
+import { severityWord, type Severity } from '@domain/severity';
 import { COMM_PATH_LABELS, type CommPath, DEVICE_TYPE_LABELS, ZONE_STATUS_LABELS, ZONE_TYPE_LABELS } from '@domain/devices';
 import { type ZoneValues } from '@domain/schemas/zone';
 
@@ -36,7 +37,8 @@ export interface ProgrammingSheetData {
     changedSinceProgrammed: boolean;
   };
   settings: PanelSettings;
-  findings: readonly Cp01Finding[];
+  /** every finding on the panel (CP-01, life-safety zone types, standby battery, path) */
+  findings: readonly { severity: Severity; clause: string; message: string }[];
   /** the zones to list, in order (the caller leaves out removed zones), each with where it is, if known */
   zones: readonly SheetZone[];
   generatedAt: Date;
@@ -137,7 +139,7 @@ export function fontFor(text: string, font: 'sans' | 'sansBold' | 'mono'): 'sans
   return font === 'mono' && /\s/.test(text) ? 'sans' : font;
 }
 
-const SEVERITY_WORD: Record<Cp01Finding['severity'], string> = { error: 'Outside CP-01', warning: 'Check', info: 'Note' };
+
 
 /** Builds the PDF. */
 export function buildProgrammingSheet(data: ProgrammingSheetData): Promise<ProgrammingSheet> {
@@ -228,15 +230,15 @@ export function buildProgrammingSheet(data: ProgrammingSheetData): Promise<Progr
   y = settingsBottom + 6;
 
   if (data.findings.length === 0) {
-    y += write('CP-01 audit: no findings.', left, y, { size: 9, color: MUTED }) + 4;
+    y += write('Panel checks (CP-01, standby battery, path): no findings.', left, y, { size: 9, color: MUTED }) + 4;
   } else {
-    y += write(`CP-01 audit: ${data.findings.length} finding${data.findings.length === 1 ? '' : 's'}`, left, y, { font: 'sansBold', size: 9 }) + 2;
+    y += write(`Panel checks: ${data.findings.length} finding${data.findings.length === 1 ? '' : 's'}`, left, y, { font: 'sansBold', size: 9 }) + 2;
     for (const finding of data.findings) {
       if (y > bottom - 24) {
         doc.addPage();
         y = PAGE.margin;
       }
-      const tag = `${SEVERITY_WORD[finding.severity]} · ${finding.clause}`;
+      const tag = `${severityWord(finding.severity)} · ${finding.clause}`;
       const tagHeight = write(tag, left, y, { font: 'sansBold', size: 8, color: MUTED });
       y += tagHeight + write(finding.message, left, y + tagHeight, { size: 9 }) + 4;
     }

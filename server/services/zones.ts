@@ -8,6 +8,7 @@
 import { Op } from 'sequelize';
 import { type ZoneStatus } from '@domain/devices';
 import { deviceLife, mergeUpkeepSettings, type DeviceLife, type UpkeepSettings } from '@domain/device-life';
+import { checkLifeSafetyZone, type LifeSafetyZoneInput, type LifeSafetyZoneProblem } from '@domain/life-safety-zone';
 import { type ZoneValues, type zoneCreateSchema, type zonePatchSchema } from '@domain/schemas/zone';
 import {
   type ChangeSet,
@@ -183,6 +184,24 @@ export interface ZoneViewContext {
   upkeep: UpkeepSettings;
   panel: PanelRange;
   elsewhere: Map<string, ElsewherePlace[]>;
+  /** the panel's zones, for the life-safety check of a combination alarm's two halves */
+  siblings: LifeSafetyZoneInput[];
+}
+
+/** What the life-safety zone check needs of a zone. */
+export function lifeSafetyInputOf(zone: Zone): LifeSafetyZoneInput {
+  return {
+    id: zone.id,
+    number: zone.number,
+    description: zone.description,
+    deviceType: zone.deviceType,
+    zoneType: zone.zoneType,
+    reportsToMonitoring: Boolean(zone.reportsToMonitoring),
+    supervised: Boolean(zone.supervised),
+    status: zone.status ?? 'active',
+    serial: zone.serial ?? '',
+    panelId: zone.panelId,
+  };
 }
 
 export async function zoneViewContext(ctx: Ctx, panel: Panel, zones: readonly Zone[], now: Date): Promise<ZoneViewContext> {
@@ -196,11 +215,13 @@ export async function zoneViewContext(ctx: Ctx, panel: Panel, zones: readonly Zo
       panel.id,
       zones.map((z) => z.serial),
     ),
+    siblings: (await panelZones(ctx, panel.id)).map(lifeSafetyInputOf),
   };
 }
 
 export interface ZoneView {
   life: DeviceLife;
+  lifeSafetyProblems: LifeSafetyZoneProblem[];
   elsewhere: (ElsewherePlace & { note: string })[];
   warnings: ZoneProblem[];
 }
@@ -210,6 +231,7 @@ export function zoneViewOf(zone: Zone, view: ZoneViewContext): ZoneView {
   const values = zoneValuesOf(zone);
   return {
     life: deviceLife(values, view.upkeep, view.today),
+    lifeSafetyProblems: values.status === 'removed' ? [] : checkLifeSafetyZone(lifeSafetyInputOf(zone), view.siblings).problems,
     elsewhere: (view.elsewhere.get(values.serial) ?? []).map((place) => ({ ...place, note: serialElsewhereNote(place) })),
     warnings: values.status === 'removed' ? [] : zoneWarnings({ id: zone.id, number: values.number, serial: values.serial, input: values.input }, view.panel),
   };

@@ -3,7 +3,8 @@
  * as references.md section 1 gives them). A value outside a range backed by public text is an
  * error; a rule known only from memory is a warning whose message says "(from memory)".
  */
-import { type ZoneStatus, type ZoneType } from './devices';
+import { CO_DEVICE_TYPES, FIRE_DEVICE_TYPES, ZONE_TYPE_LABELS, type DeviceType, type ZoneStatus, type ZoneType } from './devices';
+import { lifeSafetyZoneTypesFor, sensesOf } from './life-safety-zone';
 
 /** The false-alarm-reduction settings kept per panel. */
 export interface PanelSettings {
@@ -65,10 +66,16 @@ export interface Cp01Finding {
   message: string;
 }
 
-/** The zones the audit looks at: their type and status. */
+/**
+ * The zones the audit looks at: their zone type and status, and the device type, so a smoke
+ * alarm on a burglary zone is found even though the zone type says nothing of fire.
+ */
 export interface Cp01Zone {
   zoneType: ZoneType;
   status: ZoneStatus;
+  deviceType?: DeviceType;
+  number?: number;
+  description?: string;
 }
 
 const FROM_MEMORY = '(from memory)';
@@ -156,26 +163,74 @@ function noAbortWindowFindings(settings: PanelSettings): Cp01Finding[] {
   ];
 }
 
-/** Fire zones still programmed on the panel (a bypassed zone is still programmed; a removed one is not). */
-function programmedFireZoneCount(zones: readonly Cp01Zone[]): number {
-  return zones.filter((zone) => zone.zoneType === 'fire_24h' && zone.status !== 'removed').length;
+/** Zones still programmed on the panel (a bypassed zone is still programmed; a removed one is not). */
+function programmed(zones: readonly Cp01Zone[]): Cp01Zone[] {
+  return zones.filter((zone) => zone.status !== 'removed');
 }
 
-/** An abort window on a panel with fire zones: fire must report with no abort delay (§4.2.5.1, public). */
+/** A fire zone by its zone type, or a fire device (smoke or heat) whatever its zone type. */
+function isFire(zone: Cp01Zone): boolean {
+  return zone.zoneType === 'fire_24h' || (zone.deviceType !== undefined && FIRE_DEVICE_TYPES.includes(zone.deviceType));
+}
+
+/** A CO zone by its zone type, or a CO device whatever its zone type. */
+function isCo(zone: Cp01Zone): boolean {
+  return zone.zoneType === 'co_24h' || (zone.deviceType !== undefined && CO_DEVICE_TYPES.includes(zone.deviceType));
+}
+
+/** "1 fire zone", "3 fire zones". */
+function counted(n: number, what: string): string {
+  return `${n} ${what}${n === 1 ? '' : 's'}`;
+}
+
+/**
+ * An abort window on a panel with fire or CO devices: fire must report with no abort delay
+ * (§4.2.5.1, public). CP-01 names fire; for CO Mullion asks the same (from memory).
+ */
 function fireZoneAbortFindings(settings: PanelSettings, zones: readonly Cp01Zone[]): Cp01Finding[] {
-  const fireZones = programmedFireZoneCount(zones);
-  if (fireZones === 0 || settings.abortWindowSec <= 0) return [];
-  const counted = fireZones === 1 ? '1 fire zone' : `${fireZones} fire zones`;
+  const live = programmed(zones);
+  const fire = live.filter(isFire).length;
+  const co = live.filter((z) => isCo(z) && !isFire(z)).length;
+  if (fire + co === 0 || settings.abortWindowSec <= 0) return [];
+  const what = [fire > 0 ? counted(fire, 'fire zone') : '', co > 0 ? counted(co, 'CO zone') : ''].filter(Boolean).join(' and ');
+  const coNote = co > 0 ? ` CP-01 names fire zones; Mullion holds CO zones to the same ${FROM_MEMORY}.` : '';
   return [
     {
       code: 'abort_window_on_fire_zones',
       severity: 'warning',
       field: 'abortWindowSec',
       clause: 'CP-01 §4.2.5.1 abort window (fire zones exempt)',
-      evidence: 'public',
-      message: `This panel has ${counted} and a ${settings.abortWindowSec} s abort window. Check that fire zones report at once: CP-01 exempts them from any abort window.`,
+      evidence: fire > 0 ? 'public' : 'memory',
+      message: `This panel has ${what} and a ${settings.abortWindowSec} s abort window. Check that they report at once: CP-01 exempts fire from any abort window.${coNote}`,
     },
   ];
+}
+
+/**
+ * A smoke, heat or CO device on a zone type the panel treats as burglary or chime: the abort
+ * window and swinger shutdown apply to it, which CP-01 forbids for fire (§4.2.5.1, public;
+ * §4.3.2 swinger shutdown, from memory). One finding per zone, naming it and what to change.
+ */
+function lifeSafetyDeviceZoneFindings(settings: PanelSettings, zones: readonly Cp01Zone[]): Cp01Finding[] {
+  const findings: Cp01Finding[] = [];
+  for (const zone of programmed(zones)) {
+    if (zone.deviceType === undefined || sensesOf(zone.deviceType).length === 0) continue;
+    const allowed = lifeSafetyZoneTypesFor(zone.deviceType);
+    if (allowed.includes(zone.zoneType)) continue;
+    const name = zone.number !== undefined ? `Zone ${zone.number}${zone.description ? ` “${zone.description}”` : ''}` : 'A zone';
+    const wanted = allowed.map((t) => ZONE_TYPE_LABELS[t]).join(' or ');
+    const applies = zone.zoneType === 'monitor_only' ? 'it never raises an alarm at all' : `the ${settings.abortWindowSec} s abort window and swinger shutdown after ${settings.swingerLimit} trips apply to it`;
+    findings.push({
+      code: 'life_safety_device_on_wrong_zone',
+      severity: 'error',
+      field: null,
+      clause: 'CP-01 §4.2.5.1 abort window and §4.3.2 swinger shutdown (fire exempt)',
+      // CP-01's text names fire; holding a CO alarm to the same is from memory
+      evidence: zone.deviceType === 'co' ? 'memory' : 'public',
+      message: `${name} is a ${zone.deviceType === 'co' ? 'CO' : zone.deviceType === 'smoke_co' ? 'smoke and CO' : 'fire'} device on a “${ZONE_TYPE_LABELS[zone.zoneType]}” zone, so ${applies}. Set its zone type to ${wanted}. CP-01 exempts fire from swinger shutdown ${FROM_MEMORY}.`,
+    });
+  }
+  return findings;
 }
 
 /** Swinger limit outside 1–6 trips: an error (2010+, public). */
@@ -292,6 +347,7 @@ export function auditPanelSettings(settings: PanelSettings, zones: readonly Cp01
     ...abortWindowRangeFindings(settings),
     ...noAbortWindowFindings(settings),
     ...fireZoneAbortFindings(settings, zones),
+    ...lifeSafetyDeviceZoneFindings(settings, zones),
     ...swingerLimitFindings(settings),
     ...cancelWindowFindings(settings),
     ...exitRestartFindings(settings),

@@ -1,9 +1,12 @@
 /**
- * Device life (product.md, "Upkeep"): when a zone's battery is due, when a smoke or CO alarm
- * reaches end of life, and whether that is ok, soon or due. Dates are 'YYYY-MM-DD' calendar
- * dates (UTC arithmetic, no time zones); the caller passes today's date in the firm's zone.
+ * Device life (product.md, "Upkeep"): when a zone's battery is due, when a smoke, heat or CO
+ * device reaches end of life, and whether that is ok, soon, due, or to be checked because a date
+ * is missing. An unknown date is never "ok": without the manufacture date on its label a
+ * life-safety device is judged by the latest end of life its installation allows, and says so.
+ * Dates are 'YYYY-MM-DD' calendar dates (UTC arithmetic, no time zones); the caller passes
+ * today's date in the firm's zone.
  */
-import { type DeviceType, type ZoneStatus } from './devices';
+import { LIFE_SAFETY_DEVICE_TYPES, type DeviceType, type ZoneStatus } from './devices';
 
 // ---------------------------------------------------------------------------------------------
 // Batteries
@@ -26,6 +29,8 @@ export const BATTERY_CAPACITY_MAH: Readonly<Record<string, number>> = {
 /**
  * Battery types whose life is fixed rather than worked out from capacity: a sealed 10-year smoke
  * alarm battery runs the alarm for at least 10 years (NFPA 72-2002 §11.6.1, references.md 4.8, PUBLIC).
+ * In a life-safety device the sealed battery is never changed: it lasts the alarm's life, so such a
+ * device has no battery date, only its end of life.
  */
 export const FIXED_BATTERY_LIFE_YEARS: Readonly<Record<string, number>> = {
   'sealed 10-year': 10,
@@ -41,8 +46,10 @@ export const MAX_COMPUTED_BATTERY_LIFE_YEARS = 10;
 export const HOURS_PER_YEAR = 8766;
 
 /**
- * Average current drawn by each device type, in microamps: our usage model (supervision check-ins,
- * typical daily activations). Common practice, no published source; a firm can override each value.
+ * Average current drawn by each device type, in microamps: our usage model. The years in the
+ * comments are at the nominal capacity; forecasts use the usable share (0.8 by default), so a
+ * door contact on a CR2032 is forecast about 4.1 years, not 5.1. The model covers supervision check-ins and
+ * typical daily activations. Common practice, no published source; a firm can override each value.
  * Null where we do not forecast a battery by default: keypads and sirens are usually powered from
  * the panel or mains with a rechargeable backup, and "other" devices have no known usage.
  */
@@ -54,6 +61,8 @@ export const DEFAULT_AVERAGE_CURRENT_UA: Readonly<Record<DeviceType, number | nu
   motion: 30, // passive infrared sensor always on: CR123A → about 5.7 years
   glass_break: 40, // microphone always listening: CR123A → about 4.3 years
   smoke: 40, // wireless transmitter plus the sensing chamber: CR123A → about 4.3 years
+  smoke_detector: 40,
+  smoke_co: 55, // two sensors and one transmitter
   heat: 30,
   co: 40,
   water: 15, // CR2450 → about 4.7 years
@@ -92,21 +101,43 @@ export function batteryCapacityFor(batteryType: string): number | null {
 export interface UpkeepSettings {
   averageCurrentMicroAmps: Partial<Record<DeviceType, number>>;
   batteryYearsOverride: Partial<Record<DeviceType, number>>;
+  /** household smoke alarms (UL 217), years from manufacture */
   smokeEndOfLifeYears: number;
+  /** system smoke detectors (UL 268), years from manufacture: the firm's own period */
+  smokeDetectorEndOfLifeYears: number;
+  /** heat alarms and detectors, years from manufacture: the firm's own period */
+  heatEndOfLifeYears: number;
+  /** CO alarms (UL 2034), years from manufacture */
   coEndOfLifeYears: number;
+  /** the share of a battery's nominal capacity a device can really use (0.5–1) */
+  usableCapacityFraction: number;
   soonDays: number;
 }
+
+/** The most NFPA 72 allows for a household smoke alarm: 10 years from manufacture (references.md 4.4, PUBLIC). */
+export const SMOKE_ALARM_MAX_YEARS = 10;
 
 /** Settings a firm starts with. */
 export const DEFAULT_UPKEEP_SETTINGS: Readonly<UpkeepSettings> = {
   averageCurrentMicroAmps: {}, // empty: DEFAULT_AVERAGE_CURRENT_UA applies
   batteryYearsOverride: {},
-  // NFPA 72: a smoke alarm stays in service no more than 10 years from date of manufacture
-  // (references.md 4.4, PUBLIC).
-  smokeEndOfLifeYears: 10,
+  // NFPA 72 (2007 §10.4.7; 2016/2019 §14.4.7.1): a household smoke alarm (UL 217) stays in service
+  // no more than 10 years from the date of manufacture (references.md 4.4, PUBLIC).
+  smokeEndOfLifeYears: SMOKE_ALARM_MAX_YEARS,
+  // The 10-year rule speaks of smoke alarms, not system smoke detectors (UL 268), which NFPA 72
+  // keeps in service by sensitivity testing. Replacing them at 10 years is common practice, no
+  // published source; the firm sets its own period.
+  smokeDetectorEndOfLifeYears: 10,
+  // Heat alarms and detectors: no fixed code period; 10 years is common practice, no published
+  // source, and a firm setting.
+  heatEndOfLifeYears: 10,
   // CO alarms: per the manufacturer, typically 5–10 years; no fixed code value
   // (references.md 4.18, MEMORY). 7 years is our default and a firm setting.
   coEndOfLifeYears: 7,
+  // A device stops working before its cell is empty (cut-off voltage, cold, self-discharge, the
+  // current peaks of each radio transmission), so the forecast uses 80% of the nominal capacity:
+  // common practice, no published source; a firm setting.
+  usableCapacityFraction: 0.8,
   soonDays: 90,
 };
 
@@ -128,8 +159,11 @@ export function mergeUpkeepSettings(partial: Partial<UpkeepSettings> | null | un
   return {
     averageCurrentMicroAmps: mergeByDeviceType(DEFAULT_UPKEEP_SETTINGS.averageCurrentMicroAmps, given.averageCurrentMicroAmps),
     batteryYearsOverride: mergeByDeviceType(DEFAULT_UPKEEP_SETTINGS.batteryYearsOverride, given.batteryYearsOverride),
-    smokeEndOfLifeYears: given.smokeEndOfLifeYears ?? DEFAULT_UPKEEP_SETTINGS.smokeEndOfLifeYears,
+    smokeEndOfLifeYears: Math.min(given.smokeEndOfLifeYears ?? DEFAULT_UPKEEP_SETTINGS.smokeEndOfLifeYears, SMOKE_ALARM_MAX_YEARS),
+    smokeDetectorEndOfLifeYears: given.smokeDetectorEndOfLifeYears ?? DEFAULT_UPKEEP_SETTINGS.smokeDetectorEndOfLifeYears,
+    heatEndOfLifeYears: given.heatEndOfLifeYears ?? DEFAULT_UPKEEP_SETTINGS.heatEndOfLifeYears,
     coEndOfLifeYears: given.coEndOfLifeYears ?? DEFAULT_UPKEEP_SETTINGS.coEndOfLifeYears,
+    usableCapacityFraction: given.usableCapacityFraction ?? DEFAULT_UPKEEP_SETTINGS.usableCapacityFraction,
     soonDays: given.soonDays ?? DEFAULT_UPKEEP_SETTINGS.soonDays,
   };
 }
@@ -139,10 +173,16 @@ export function averageCurrentFor(deviceType: DeviceType, settings: UpkeepSettin
   return settings.averageCurrentMicroAmps[deviceType] ?? DEFAULT_AVERAGE_CURRENT_UA[deviceType];
 }
 
+/** True for a battery that is never changed (a sealed 10-year battery). */
+export function isSealedBattery(batteryType: string | null): boolean {
+  return batteryType !== null && knownBatteryKey(batteryType, FIXED_BATTERY_LIFE_YEARS) !== null;
+}
+
 /**
  * Expected battery life in years for a device type and battery type: a fixed-life battery's own
- * life, else the firm's override for the device type, else capacity ÷ average current (at most
- * MAX_COMPUTED_BATTERY_LIFE_YEARS). Null when there is no battery type or nothing to go on.
+ * life, else the firm's override for the device type, else the usable capacity (nominal × the
+ * firm's usable fraction) ÷ average current (at most MAX_COMPUTED_BATTERY_LIFE_YEARS). Null when
+ * there is no battery type or nothing to go on.
  */
 export function expectedBatteryYears(deviceType: DeviceType, batteryType: string | null, settings: UpkeepSettings): number | null {
   if (batteryType === null || batteryType.trim() === '') return null;
@@ -153,7 +193,7 @@ export function expectedBatteryYears(deviceType: DeviceType, batteryType: string
   const capacity = batteryCapacityFor(batteryType);
   const current = averageCurrentFor(deviceType, settings);
   if (capacity === null || current === null || !(current > 0)) return null;
-  return Math.min(batteryLifeYears(capacity, current), MAX_COMPUTED_BATTERY_LIFE_YEARS);
+  return Math.min(batteryLifeYears(capacity * settings.usableCapacityFraction, current), MAX_COMPUTED_BATTERY_LIFE_YEARS);
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -217,41 +257,67 @@ export interface DeviceLifeZone {
   status: ZoneStatus;
 }
 
-export type DeviceLifeState = 'ok' | 'soon' | 'due';
+/**
+ * `ok`, `soon` (within the notice days), `due` (today or past), or `check`: a life-safety
+ * device whose end of life cannot be known because the manufacture date is missing. Never `ok`
+ * on an unknown date.
+ */
+export type DeviceLifeState = 'ok' | 'soon' | 'due' | 'check';
+
+/**
+ * Where the end-of-life date comes from: the manufacture date on the label (`manufactured`), the
+ * installation date as the latest it can be (`installed`: manufacture is on or before
+ * installation), or nothing (`unknown`). Null for devices without an end of life.
+ */
+export type EndOfLifeBasis = 'manufactured' | 'installed' | 'unknown' | null;
 
 /** When a zone's battery is due, when the device reaches end of life, and the state of the earlier. */
 export interface DeviceLife {
   batteryDueOn: string | null;
   endOfLifeOn: string | null;
+  endOfLifeBasis: EndOfLifeBasis;
   state: DeviceLifeState;
+  /** the forecast battery life in years, when there is one */
+  batteryYears: number | null;
+  /** a life-safety device whose battery forecast is under 1 year (NFPA 72 §23.16.2) */
+  batteryUnderOneYear: boolean;
 }
 
-/** Battery due: last change (or install) plus the expected battery life; null when either is unknown. */
-function batteryDueOn(zone: DeviceLifeZone, settings: UpkeepSettings): string | null {
-  const since = zone.batteryChangedOn ?? zone.installedOn;
-  const years = expectedBatteryYears(zone.deviceType, zone.batteryType, settings);
-  return since === null || years === null ? null : addYearsToDate(since, years);
-}
+/** The least battery life a wireless life-safety device may have: 1 year (NFPA 72-2016 §23.16.2 — references.md 4.10, PUBLIC). */
+export const LIFE_SAFETY_MIN_BATTERY_YEARS = 1;
 
 /**
- * Years from manufacture to end of life for a device type; null for devices without one. Heat
- * alarms follow the smoke alarm period as firm practice (they are replaced with the smoke alarms
- * beside them); NFPA 72 row 4.4 itself speaks of smoke alarms only.
+ * Years from manufacture to end of life for a device type, each named for what it is; null for
+ * devices without one. A combination smoke and CO alarm ends with the shorter of its two parts.
  */
-function endOfLifeYears(deviceType: DeviceType, settings: UpkeepSettings): number | null {
-  if (deviceType === 'smoke' || deviceType === 'heat') return settings.smokeEndOfLifeYears;
-  if (deviceType === 'co') return settings.coEndOfLifeYears;
-  return null;
+export function endOfLifeYearsFor(deviceType: DeviceType, settings: UpkeepSettings): number | null {
+  switch (deviceType) {
+    case 'smoke':
+      return Math.min(settings.smokeEndOfLifeYears, SMOKE_ALARM_MAX_YEARS);
+    case 'smoke_detector':
+      return settings.smokeDetectorEndOfLifeYears;
+    case 'heat':
+      return settings.heatEndOfLifeYears;
+    case 'co':
+      return settings.coEndOfLifeYears;
+    case 'smoke_co':
+      return Math.min(settings.smokeEndOfLifeYears, SMOKE_ALARM_MAX_YEARS, settings.coEndOfLifeYears);
+    default:
+      return null;
+  }
 }
 
-/** End of life: date of manufacture plus the device type's period; null without a manufacture date. */
-function endOfLifeOn(zone: DeviceLifeZone, settings: UpkeepSettings): string | null {
-  const years = endOfLifeYears(zone.deviceType, settings);
-  return zone.manufacturedOn === null || years === null ? null : addYearsToDate(zone.manufacturedOn, years);
+/** End of life and where it comes from: manufacture + period; else installation + period (the latest it can be); else unknown. */
+function endOfLifeOf(zone: DeviceLifeZone, settings: UpkeepSettings): { on: string | null; basis: EndOfLifeBasis } {
+  const years = endOfLifeYearsFor(zone.deviceType, settings);
+  if (years === null) return { on: null, basis: null };
+  if (zone.manufacturedOn !== null) return { on: addYearsToDate(zone.manufacturedOn, years), basis: 'manufactured' };
+  if (zone.installedOn !== null) return { on: addYearsToDate(zone.installedOn, years), basis: 'installed' };
+  return { on: null, basis: 'unknown' };
 }
 
 /** 'due' when a date is today or past, 'soon' when one falls within soonDays, else 'ok'. */
-export function lifeState(dates: readonly (string | null)[], today: string, soonDays: number): DeviceLifeState {
+export function lifeState(dates: readonly (string | null)[], today: string, soonDays: number): 'ok' | 'soon' | 'due' {
   const known = dates.filter((date): date is string => date !== null);
   if (known.some((date) => isOnOrBefore(date, today))) return 'due';
   const horizon = addDaysToDate(today, soonDays);
@@ -259,10 +325,28 @@ export function lifeState(dates: readonly (string | null)[], today: string, soon
   return 'ok';
 }
 
-/** A zone's battery due date, end-of-life date and state on `today`; a removed zone is 'ok' with no dates. */
+/**
+ * A zone's battery due date, end-of-life date and state on `today`; a removed zone is 'ok' with no
+ * dates. A sealed battery in a life-safety device gets no battery date: the alarm's end of life
+ * covers it. Without the manufacture date, a life-safety device is `due` when even the latest end
+ * of life (installation + period) has passed, `soon` when it is near, and otherwise `check`.
+ */
 export function deviceLife(zone: DeviceLifeZone, settings: UpkeepSettings, today: string): DeviceLife {
-  if (zone.status === 'removed') return { batteryDueOn: null, endOfLifeOn: null, state: 'ok' };
-  const battery = batteryDueOn(zone, settings);
-  const endOfLife = endOfLifeOn(zone, settings);
-  return { batteryDueOn: battery, endOfLifeOn: endOfLife, state: lifeState([battery, endOfLife], today, settings.soonDays) };
+  if (zone.status === 'removed') return { batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: null, state: 'ok', batteryYears: null, batteryUnderOneYear: false };
+  const lifeSafety = LIFE_SAFETY_DEVICE_TYPES.includes(zone.deviceType);
+  const sealedForLife = lifeSafety && isSealedBattery(zone.batteryType);
+  const years = sealedForLife ? null : expectedBatteryYears(zone.deviceType, zone.batteryType, settings);
+  const since = zone.batteryChangedOn ?? zone.installedOn;
+  const battery = since === null || years === null ? null : addYearsToDate(since, years);
+  const endOfLife = endOfLifeOf(zone, settings);
+  let state: DeviceLifeState = lifeState([battery, endOfLife.on], today, settings.soonDays);
+  if (state === 'ok' && (endOfLife.basis === 'installed' || endOfLife.basis === 'unknown')) state = 'check';
+  return {
+    batteryDueOn: battery,
+    endOfLifeOn: endOfLife.on,
+    endOfLifeBasis: endOfLife.basis,
+    state,
+    batteryYears: years,
+    batteryUnderOneYear: lifeSafety && years !== null && years < LIFE_SAFETY_MIN_BATTERY_YEARS,
+  };
 }

@@ -32,6 +32,10 @@ export const ZONE_DEFAULTS: Readonly<Record<DeviceType, Readonly<ZoneDefaults>>>
   motion: { zoneType: 'interior_follower', reportsToMonitoring: true, chime: false, supervised: true },
   glass_break: { zoneType: 'perimeter', reportsToMonitoring: true, chime: false, supervised: true },
   smoke: { zoneType: 'fire_24h', reportsToMonitoring: true, chime: false, supervised: true },
+  smoke_detector: { zoneType: 'fire_24h', reportsToMonitoring: true, chime: false, supervised: true },
+  // A combination alarm is enrolled twice: input 1 on a fire zone (this default), input 2 on a
+  // CO zone. The life-safety zone check asks for the second when only one is enrolled.
+  smoke_co: { zoneType: 'fire_24h', reportsToMonitoring: true, chime: false, supervised: true },
   heat: { zoneType: 'fire_24h', reportsToMonitoring: true, chime: false, supervised: true },
   co: { zoneType: 'co_24h', reportsToMonitoring: true, chime: false, supervised: true },
   water: { zoneType: 'water_24h', reportsToMonitoring: true, chime: false, supervised: true },

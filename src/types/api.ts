@@ -182,9 +182,50 @@ export interface ApiDocument {
 // ---------------------------------------------------------------------------------------------
 // Panels and zones
 // ---------------------------------------------------------------------------------------------
-import type { Cp01Finding, PanelSettings } from '@domain/cp01';
-import type { DeviceLifeState } from '@domain/device-life';
+import type { PanelSettings } from '@domain/cp01';
+import type { DeviceLifeState, EndOfLifeBasis } from '@domain/device-life';
 import type { CommPath, DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
+import type { PanelOccupancy, StandbyDuty } from '@domain/panel-power';
+import type { Evidence, Severity } from '@domain/severity';
+
+/** One finding on a panel: CP-01 (settings, and the zone types of fire and CO devices) or power (standby battery, path). */
+export interface ApiPanelFinding {
+  code: string;
+  severity: Severity;
+  field: string | null;
+  clause: string;
+  evidence: Evidence;
+  message: string;
+  topic: 'cp01' | 'power';
+  lifeSafety: boolean;
+}
+
+/** The panel's standby battery worked out from its currents (null amounts until the currents are recorded). */
+export interface ApiPanelStandby {
+  duty: StandbyDuty;
+  standbyHours: number;
+  alarmMinutes: number;
+  neededAh: number | null;
+  requiredAh: number | null;
+  batteryDueOn: string | null;
+}
+
+/** What keeps a smoke, heat or CO device's zone from protecting, and what to change. */
+export interface ApiLifeSafetyProblem {
+  code: string;
+  field: 'zoneType' | 'reportsToMonitoring' | 'supervised' | null;
+  what: string;
+  fix: string;
+}
+
+export interface ApiDeviceLife {
+  batteryDueOn: string | null;
+  endOfLifeOn: string | null;
+  endOfLifeBasis?: EndOfLifeBasis;
+  state: DeviceLifeState;
+  batteryYears?: number | null;
+  batteryUnderOneYear?: boolean;
+}
 
 export interface ApiPanel {
   id: string;
@@ -198,6 +239,13 @@ export interface ApiPanel {
   wirelessZoneTo: number;
   commPath: CommPath;
   installedOn: string | null;
+  occupancy?: PanelOccupancy;
+  standbyCurrentMa?: number | null;
+  alarmCurrentMa?: number | null;
+  batteryAh?: number | null;
+  batteryManufacturedOn?: string | null;
+  pathFailureReportMin?: number | null;
+  standby?: ApiPanelStandby;
   settings: PanelSettings;
   programmedAt: string | null;
   changedSinceProgrammed: boolean;
@@ -205,8 +253,8 @@ export interface ApiPanel {
   nextZoneNumber: number | null;
   /** Zones that hold a number (every zone but a removed one), when the server counts them. */
   zoneCount?: number;
-  /** CP-01 findings on the panel's settings. */
-  audit: Cp01Finding[];
+  /** Every finding on the panel, most severe first: CP-01, life-safety zone types, standby battery, path. */
+  audit: ApiPanelFinding[];
   createdAt?: string;
   updatedAt?: string;
 }
@@ -230,7 +278,9 @@ export interface ApiZone {
   batteryType: string | null;
   batteryChangedOn: string | null;
   manufacturedOn: string | null;
-  life: { batteryDueOn: string | null; endOfLifeOn: string | null; state: DeviceLifeState };
+  life: ApiDeviceLife;
+  /** How the zone keeps a smoke, heat or CO device from protecting (empty when it protects). */
+  lifeSafetyProblems?: ApiLifeSafetyProblem[];
   /** The same serial in service on other panels of the firm (a note, not an error). */
   elsewhere?: (ApiSerialElsewhere | string)[];
   /** Notes that did not block saving, e.g. a number outside the wireless range. */
@@ -317,6 +367,12 @@ export interface ApiRoom {
   kind: RoomKind;
   fuelBurningAppliance: boolean;
   attachedGarage: boolean;
+  /** a bedroom: the hall or landing that serves its sleeping area */
+  servedByHallId?: string | null;
+  /** a bedroom: its door confirmed within 21 ft of that hall's alarm */
+  hallWithin21FtConfirmed?: boolean;
+  /** a bathroom: the bedroom it is attached to */
+  attachedToBedroomId?: string | null;
   openings: ApiOpening[];
 }
 
@@ -372,11 +428,14 @@ export interface ApiCoverageFinding {
   severity: FindingSeverity;
   /** the rule in words */
   rule: string;
-  /** where the rule comes from */
-  source: string;
+  /** where the rule comes from (staff only) */
+  source?: string;
+  /** public text, memory or trade practice (staff only) */
+  evidence?: Evidence;
   message: string;
   floorId: string | null;
   roomId: string | null;
+  zoneId?: string | null;
   /** smoke/CO findings; shown with the life-safety caution */
   lifeSafety?: boolean;
 }
@@ -395,7 +454,8 @@ export interface ApiCoverageRoom {
   name: string;
   kind?: RoomKind;
   openings: ApiCoverageOpening[];
-  devices?: { zoneId: string; description: string; deviceType: DeviceType }[];
+  /** `counts` is false for a smoke, heat or CO device whose zone is not programmed to protect */
+  devices?: { zoneId: string; description: string; deviceType: DeviceType; counts?: boolean }[];
 }
 
 export interface ApiCoverageFloor {
@@ -517,9 +577,10 @@ export interface PortalSite {
 }
 
 export interface PortalDeviceLife {
-  state: 'ok' | 'soon' | 'due';
+  state: DeviceLifeState;
   batteryDueOn: string | null;
   endOfLifeOn: string | null;
+  endOfLifeBasis?: EndOfLifeBasis;
 }
 
 export interface PortalDevice {
@@ -528,6 +589,10 @@ export interface PortalDevice {
   kind: string;
   whenArmed: string;
   chime: boolean;
+  /** a smoke, heat or CO device: shown with the caution */
+  lifeSafety?: boolean;
+  /** false for a smoke, heat or CO device whose zone is not programmed to protect */
+  protects?: boolean;
   life: PortalDeviceLife;
 }
 

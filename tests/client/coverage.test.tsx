@@ -173,7 +173,8 @@ describe('coverage page', () => {
     // the standard and section, without the pointer into our own reference file
     expect(within(lifeSafety).getByText("Source: NFPA 72 Chapter 29, required detection")).toBeInTheDocument();
     expect(within(lifeSafety).getByText('Guest room (Upstairs) has no smoke alarm in service.')).toBeInTheDocument();
-    expect(within(lifeSafety).getByText('Gap')).toBeInTheDocument();
+    expect(within(lifeSafety).getByText('Fix')).toBeInTheDocument();
+    expect(within(lifeSafety).queryByText('Gap')).toBeNull();
     expect(within(lifeSafety).getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
 
     const others = screen.getByRole('region', { name: /Intrusion gaps/ });
@@ -199,5 +200,67 @@ describe('coverage page', () => {
     renderCoverage();
     expect(await screen.findByText(SUMMARY)).toBeInTheDocument();
     expect(screen.queryByText(LIFE_SAFETY_CAUTION)).toBeNull();
+  });
+
+  it('words every finding on the one severity scale — Fix, Check, Note — and marks rules known from memory', async () => {
+    const coverage = makeCoverage();
+    stubApi({
+      ...coverage,
+      findings: [
+        ...coverage.findings,
+        {
+          code: 'co_missing_level',
+          severity: 'warning',
+          rule: 'NFPA 720: a CO alarm on every occupiable level, including basements',
+          source: 'NFPA 720-2012/2015 §9.4.1, now in NFPA 72-2022 — references.md 4.17 (MEMORY)',
+          evidence: 'memory',
+          message: 'Upstairs has no CO alarm in service.',
+          floorId: 'f2',
+          roomId: null,
+          lifeSafety: true,
+        },
+        {
+          code: 'room_without_interior_detection',
+          severity: 'info',
+          rule: 'A room with doors or windows has a motion or glass-break detector',
+          source: 'Alarm trade practice — common practice, no published source',
+          evidence: 'practice',
+          message: 'Den (Ground floor) has no motion or glass-break detector.',
+          floorId: 'f1',
+          roomId: 'r1',
+          lifeSafety: false,
+        },
+      ],
+    });
+    renderCoverage();
+    expect(await screen.findByText(SUMMARY)).toBeInTheDocument();
+
+    const lifeSafety = screen.getByRole('region', { name: /Life safety/ });
+    const smokeItem = within(lifeSafety).getByText(SMOKE_RULE).closest('li')!;
+    expect(within(smokeItem).getByText('Fix')).toBeInTheDocument();
+    expect(within(smokeItem).queryByText('From memory')).toBeNull();
+    const coItem = within(lifeSafety).getByText(/NFPA 720: a CO alarm on every occupiable level/).closest('li')!;
+    expect(within(coItem).getByText('Check')).toBeInTheDocument();
+    expect(within(coItem).getByText('From memory')).toBeInTheDocument();
+    expect(within(lifeSafety).getByText(/“From memory” marks rules Mullion knows without a public text to cite/)).toBeInTheDocument();
+
+    const others = screen.getByRole('region', { name: /Intrusion gaps/ });
+    const groundItem = within(others).getByText('Every door and window reachable from the ground has a sensor').closest('li')!;
+    expect(within(groundItem).getByText('Check')).toBeInTheDocument();
+    const roomItem = within(others).getByText('A room with doors or windows has a motion or glass-break detector').closest('li')!;
+    expect(within(roomItem).getByText('Note')).toBeInTheDocument();
+    expect(within(others).queryByText('From memory')).toBeNull();
+    // the words are the same as the severity scale's, and the legend counts stay
+    expect(screen.getByText('Reachable from the ground, no sensor')).toBeInTheDocument();
+  });
+
+  it('says when a smoke alarm in a room does not count because its zone is not programmed to protect', async () => {
+    const coverage = makeCoverage();
+    const floors = structuredClone(coverage.floors);
+    floors[1]!.rooms[0]!.devices = [{ zoneId: 'z7', description: 'Guest smoke', deviceType: 'smoke', counts: false }];
+    stubApi({ ...coverage, floors });
+    renderCoverage();
+    const upstairs = await screen.findByRole('region', { name: 'Upstairs' });
+    expect(within(upstairs).getByText(/Guest smoke \(smoke alarm\)/).closest('p')).toHaveTextContent('not programmed to protect, does not count');
   });
 });

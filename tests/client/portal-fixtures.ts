@@ -23,12 +23,15 @@ export const OTHER_SITE_ID = 'c4f8a2d6-9b1e-4c3a-8f5d-2e6b0a4c8d31';
 
 export const GROUND_FLOOR_ID = 'f0a1b2c3-d4e5-4f60-8a7b-9c0d1e2f3a01';
 export const UPSTAIRS_ID = 'f0a1b2c3-d4e5-4f60-8a7b-9c0d1e2f3a02';
+export const MAIN_BEDROOM_ID = 'b7c8d9e0-f1a2-4b3c-8d4e-5f6a7b8c9d03';
 
 /** Device (zone) ids: the request form sends one as zoneId, which must be a uuid. */
 export const KITCHEN_WINDOW_ZONE = '9e1d2c3b-4a5f-4e6d-8c7b-0a1f2e3d4c01';
 export const HALL_SMOKE_ZONE = '9e1d2c3b-4a5f-4e6d-8c7b-0a1f2e3d4c02';
 export const LANDING_CO_ZONE = '9e1d2c3b-4a5f-4e6d-8c7b-0a1f2e3d4c03';
 export const BACK_DOOR_ZONE = '9e1d2c3b-4a5f-4e6d-8c7b-0a1f2e3d4c04';
+export const GARAGE_HEAT_ZONE = '9e1d2c3b-4a5f-4e6d-8c7b-0a1f2e3d4c05';
+export const STAIR_SMOKE_ZONE = '9e1d2c3b-4a5f-4e6d-8c7b-0a1f2e3d4c06';
 
 export const FIRM_NAME = 'Lanternfield Alarm Co.';
 export const FIRM_PHONE = '(555) 010-2870';
@@ -94,25 +97,33 @@ export const kitchenWindowDevice: PortalDevice = {
   kind: 'Window contact',
   whenArmed: 'When the alarm is set, opening it sounds the alarm straight away.',
   chime: true,
-  life: { state: 'ok', batteryDueOn: '2029-06-30', endOfLifeOn: null },
+  lifeSafety: false,
+  protects: true,
+  life: { state: 'ok', batteryDueOn: '2029-06-30', endOfLifeOn: null, endOfLifeBasis: null },
 };
 
+/** A smoke alarm whose battery is due soon; its manufacture date is on record. */
 export const hallSmokeDevice: PortalDevice = {
   id: HALL_SMOKE_ZONE,
   description: 'Hall smoke alarm',
   kind: 'Smoke alarm',
-  whenArmed: 'Always on, even when the alarm is off: it sounds the fire alarm and calls for help.',
+  whenArmed: 'Always on, even when the alarm is off: it sounds the fire alarm and the monitoring center is called.',
   chime: false,
-  life: { state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: '2034-08-01' },
+  lifeSafety: true,
+  protects: true,
+  life: { state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: '2034-08-01', endOfLifeBasis: 'manufactured' },
 };
 
+/** A sealed CO alarm past its end of life. */
 export const landingCoDevice: PortalDevice = {
   id: LANDING_CO_ZONE,
   description: 'Landing CO alarm',
   kind: 'CO alarm',
-  whenArmed: 'Always on, even when the alarm is off: it warns of carbon monoxide and calls for help.',
+  whenArmed: 'Always on, even when the alarm is off: it warns of carbon monoxide and the monitoring center is called.',
   chime: false,
-  life: { state: 'due', batteryDueOn: null, endOfLifeOn: '2026-11-02' },
+  lifeSafety: true,
+  protects: true,
+  life: { state: 'due', batteryDueOn: null, endOfLifeOn: '2026-11-02', endOfLifeBasis: 'manufactured' },
 };
 
 export const backDoorDevice: PortalDevice = {
@@ -121,10 +132,40 @@ export const backDoorDevice: PortalDevice = {
   kind: 'Door contact',
   whenArmed: 'When the alarm is set, opening it starts the entry countdown so you can switch the alarm off.',
   chime: true,
-  life: { state: 'ok', batteryDueOn: null, endOfLifeOn: null },
+  lifeSafety: false,
+  protects: true,
+  life: { state: 'ok', batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: null },
 };
 
-export const devices: PortalDevice[] = [backDoorDevice, hallSmokeDevice, kitchenWindowDevice, landingCoDevice];
+/** A heat alarm without its manufacture date: replace by installation + 10 years at the latest. */
+export const garageHeatDevice: PortalDevice = {
+  id: GARAGE_HEAT_ZONE,
+  description: 'Garage heat alarm',
+  kind: 'Heat alarm',
+  whenArmed: 'Always on, even when the alarm is off: it sounds the fire alarm and the monitoring center is called.',
+  chime: false,
+  lifeSafety: true,
+  protects: true,
+  life: { state: 'check', batteryDueOn: null, endOfLifeOn: '2031-03-20', endOfLifeBasis: 'installed' },
+};
+
+export const NOT_PROTECTING_WORDS =
+  'It is not set up to raise the alarm and call for help, so it does not count as protection. Ask your alarm firm to change how it is programmed.';
+
+/** A sealed smoke alarm in good time, on a zone that is not programmed to protect. */
+export const stairSmokeDevice: PortalDevice = {
+  id: STAIR_SMOKE_ZONE,
+  description: 'Stair smoke alarm',
+  kind: 'Smoke alarm',
+  whenArmed: NOT_PROTECTING_WORDS,
+  chime: false,
+  lifeSafety: true,
+  protects: false,
+  life: { state: 'ok', batteryDueOn: null, endOfLifeOn: '2033-05-10', endOfLifeBasis: 'manufactured' },
+};
+
+/** As the server lists them: by description. */
+export const devices: PortalDevice[] = [backDoorDevice, garageHeatDevice, hallSmokeDevice, kitchenWindowDevice, landingCoDevice, stairSmokeDevice];
 
 export const SUMMARY_SENTENCE = '4 of 7 doors and windows protected; 2 windows reachable from the ground have no sensor';
 
@@ -146,7 +187,8 @@ export function makeSummary(overrides: Partial<PortalSiteSummary> = {}): PortalS
       findings: lifeSafetyMessages.map((message, i) => ({ code: i === 4 ? 'co_missing_sleeping_area' : 'smoke_missing_sleeping_room', severity: i < 3 ? 'error' : 'warning', message })),
       caution: LIFE_SAFETY_CAUTION,
     },
-    devicesDueSoon: [hallSmokeDevice, landingCoDevice],
+    // due, soon, and the smoke, heat and CO devices whose label date must be checked
+    devicesDueSoon: [garageHeatDevice, hallSmokeDevice, landingCoDevice],
     nextVisit: { kind: 'inspection', scheduledStart: '2026-12-08T15:30:00.000Z' },
     firm: firmContact,
     ...overrides,
@@ -164,11 +206,29 @@ export function makeCoverage(overrides: Partial<PortalCoverage> = {}): PortalCov
       {
         code: 'smoke_missing_sleeping_room',
         severity: 'error',
-        rule: 'A smoke alarm in every sleeping room',
-        source: 'NFPA 72 Chapter 29, required detection',
+        rule: 'NFPA 72: a smoke alarm in every sleeping room',
         message: 'Main bedroom (Upstairs) has no smoke alarm in service.',
         floorId: UPSTAIRS_ID,
-        roomId: 'b7c8d9e0-f1a2-4b3c-8d4e-5f6a7b8c9d03',
+        roomId: MAIN_BEDROOM_ID,
+        lifeSafety: true,
+      },
+      {
+        code: 'smoke_in_garage',
+        severity: 'info',
+        rule: 'A smoke alarm in a garage does not count for its level',
+        message: '“Garage smoke alarm” is in Garage (Ground floor). A smoke alarm in a garage does not count for its level.',
+        floorId: GROUND_FLOOR_ID,
+        roomId: null,
+        lifeSafety: true,
+      },
+      {
+        code: 'life_safety_zone_programming',
+        severity: 'error',
+        rule: 'A smoke, heat or CO device protects only on a fire or CO zone that is in service, reported to the monitoring center and supervised',
+        message: '“Stair smoke alarm” is not reported to the monitoring center. It does not count as protection until this is changed.',
+        floorId: UPSTAIRS_ID,
+        roomId: MAIN_BEDROOM_ID,
+        zoneId: STAIR_SMOKE_ZONE,
         lifeSafety: true,
       },
     ],
@@ -198,6 +258,7 @@ export function makeCoverage(overrides: Partial<PortalCoverage> = {}): PortalCov
               { id: 'a0000000-0000-4000-8000-000000000003', kind: 'door', label: 'Back door', groundReachable: true, protected: true, zoneDescription: 'Back door' },
               { id: 'a0000000-0000-4000-8000-000000000004', kind: 'door', label: 'Front door', groundReachable: true, protected: true, zoneDescription: 'Front door' },
             ],
+            devices: [{ zoneId: HALL_SMOKE_ZONE, description: 'Hall smoke alarm', deviceType: 'smoke', counts: true }],
           },
         ],
       },
@@ -208,10 +269,12 @@ export function makeCoverage(overrides: Partial<PortalCoverage> = {}): PortalCov
         belowGrade: false,
         rooms: [
           {
-            id: 'b7c8d9e0-f1a2-4b3c-8d4e-5f6a7b8c9d03',
+            id: MAIN_BEDROOM_ID,
             name: 'Main bedroom',
             kind: 'bedroom',
             openings: [{ id: 'a0000000-0000-4000-8000-000000000005', kind: 'window', label: 'Dormer window', groundReachable: false, protected: false, zoneDescription: null }],
+            // on a zone that is not programmed to protect: not protection
+            devices: [{ zoneId: STAIR_SMOKE_ZONE, description: 'Stair smoke alarm', deviceType: 'smoke', counts: false }],
           },
         ],
       },

@@ -38,6 +38,7 @@ import {
   devices,
   documents,
   elmHollow,
+  garageHeatDevice,
   hallSmokeDevice,
   kitchenWindowDevice,
   lakeCabin,
@@ -46,7 +47,9 @@ import {
   makeCoverage,
   makeService,
   makeSummary,
+  NOT_PROTECTING_WORDS,
   signedOutSession,
+  stairSmokeDevice,
 } from './portal-fixtures';
 import { jsonResponse } from './render';
 
@@ -183,6 +186,9 @@ function bodyOf(call: [string, RequestInit?]): unknown {
 /** Text split over several elements, matched on the innermost element that holds all of it. */
 const wholeText = (text: string) => (_content: string, el: Element | null) =>
   el?.textContent === text && Array.from(el.children).every((c) => c.textContent !== text);
+
+/** The severity word of a finding's badge ("Fix", "Check" or "Note"), without its read-out meaning. */
+const severityWordIn = (el: HTMLElement) => within(el).getByText(/^(Fix|Check|Note)$/).textContent.split(':')[0];
 
 const sectionLinks = () =>
   within(screen.getByRole('navigation', { name: 'Portal sections' }))
@@ -323,7 +329,9 @@ describe('portal site home', () => {
 
     const lifeSafety = screen.getByRole('region', { name: 'Smoke and carbon monoxide' });
     const findings = within(within(lifeSafety).getByRole('list', { name: 'Life-safety findings' })).getAllByRole('listitem');
-    expect(findings.map((li) => li.textContent)).toEqual(lifeSafetyMessages.slice(0, 4));
+    expect(findings.map((li) => li.querySelector('span.min-w-0')?.textContent)).toEqual(lifeSafetyMessages.slice(0, 4));
+    // the one severity scale, in words beside the triangle: three to fix, then one to check
+    expect(findings.map((li) => severityWordIn(li))).toEqual(['Fix', 'Fix', 'Fix', 'Check']);
     expect(within(lifeSafety).queryByText(lifeSafetyMessages[4]!)).toBeNull();
     expect(within(lifeSafety).getByRole('link', { name: '2 more — see the rules and where' })).toHaveAttribute('href', `/portal/sites/${SITE_ID}/coverage`);
     expect(within(lifeSafety).getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
@@ -331,8 +339,9 @@ describe('portal site home', () => {
     const upkeep = screen.getByRole('region', { name: 'Batteries and upkeep' });
     const due = within(upkeep).getAllByRole('listitem');
     expect(due.map((li) => li.textContent)).toEqual([
+      'Garage heat alarmHeat alarmCheck the date on its label — replace by March 2031 at the latest',
       'Hall smoke alarmSmoke alarmBattery due in March 2027',
-      'Landing CO alarmCO alarmReplacement due since November 2026',
+      'Landing CO alarmCO alarmReplace now: past its end of life',
     ]);
     expect(within(upkeep).getByRole('link', { name: 'All devices' })).toHaveAttribute('href', `/portal/sites/${SITE_ID}/devices`);
 
@@ -371,7 +380,42 @@ describe('portal site home', () => {
       'Smoke alarm 3',
       'Smoke alarm 4',
     ]);
-    expect(within(upkeep).getByRole('link', { name: '2 more due — all devices' })).toHaveAttribute('href', `/portal/sites/${SITE_ID}/devices`);
+    expect(within(upkeep).getByRole('link', { name: '2 more to look at — all devices' })).toHaveAttribute('href', `/portal/sites/${SITE_ID}/devices`);
+  });
+
+  it('puts the severity word beside each life-safety triangle, most severe first', async () => {
+    const summary = makeSummary();
+    stubApi({
+      summary: {
+        ...summary,
+        lifeSafety: {
+          caution: LIFE_SAFETY_CAUTION,
+          findings: [
+            { code: 'smoke_in_garage', severity: 'info', message: '“Garage smoke alarm” is in Garage (Ground floor).' },
+            { code: 'sleeping_area_unknown', severity: 'warning', message: 'Main bedroom (Upstairs) does not say which landing serves it.' },
+            { code: 'life_safety_zone_programming', severity: 'error', message: '“Stair smoke alarm” is not reported to the monitoring center.' },
+          ],
+        },
+      },
+    });
+    renderPortal(`/portal/sites/${SITE_ID}`);
+    const lifeSafety = await screen.findByRole('region', { name: 'Smoke and carbon monoxide' });
+    const findings = within(within(lifeSafety).getByRole('list', { name: 'Life-safety findings' })).getAllByRole('listitem');
+    expect(findings.map((li) => severityWordIn(li))).toEqual(['Fix', 'Check', 'Note']);
+    expect(within(findings[0]!).getByText('“Stair smoke alarm” is not reported to the monitoring center.')).toBeInTheDocument();
+    // the word's meaning is read out, and the triangle is drawn beside it
+    expect(findings[0]).toHaveTextContent('Fix: something that must change');
+    expect(findings.every((li) => li.querySelector('svg path[d^="M8 1.6"]') !== null)).toBe(true);
+    expect(within(lifeSafety).getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
+  });
+
+  it('lists a smoke alarm not set up to protect among the upkeep, with “Not protecting”', async () => {
+    stubApi({ summary: makeSummary({ devicesDueSoon: [{ ...stairSmokeDevice, life: { state: 'soon', batteryDueOn: null, endOfLifeOn: '2027-01-31', endOfLifeBasis: 'manufactured' } }] }) });
+    renderPortal(`/portal/sites/${SITE_ID}`);
+    const upkeep = await screen.findByRole('region', { name: 'Batteries and upkeep' });
+    const [row] = within(upkeep).getAllByRole('listitem');
+    expect(within(row!).getByText('Not protecting')).toBeInTheDocument();
+    expect(within(row!).getByText('Replace by January 2027')).toBeInTheDocument();
   });
 
   it('says so when nothing is recorded, due or booked', async () => {
@@ -423,12 +467,12 @@ describe('portal coverage', () => {
     expect(within(ground).getByRole('img', { name: 'Zone 3: Kitchen window (window contact)' })).toHaveStyle({ left: '30%', top: '40%' });
     expect(within(upstairs).queryByRole('img', { name: /Floor plan/ })).toBeNull();
 
-    const lifeSafety = screen.getByRole('region', { name: /Life safety/ });
+    const lifeSafety = screen.getByRole('region', { name: 'Smoke and carbon monoxide' });
     expect(within(lifeSafety).getByText('Main bedroom (Upstairs) has no smoke alarm in service.')).toBeInTheDocument();
     expect(within(lifeSafety).getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
   });
 
-  it('has no caution without findings, and says every opening has a sensor when none is missing', async () => {
+  it('keeps the caution without findings, and says every opening has a sensor when none is missing', async () => {
     const coverage = makeCoverage();
     const allProtected = coverage.floors.map((f) => ({ ...f, rooms: f.rooms.map((r) => ({ ...r, openings: r.openings.map((o) => ({ ...o, protected: true, zoneDescription: o.label })) })) }));
     stubApi({ coverage: { ...coverage, findings: [], caution: null, floors: allProtected, summary: 'All 6 doors and windows protected' } });
@@ -436,7 +480,43 @@ describe('portal coverage', () => {
     expect(await screen.findByText('All 6 doors and windows protected')).toBeInTheDocument();
     expect(within(screen.getByRole('region', { name: 'No sensor yet' })).getByText('Every door and window recorded has a sensor.')).toBeInTheDocument();
     expect(screen.queryByRole('list', { name: 'Doors and windows without a sensor' })).toBeNull();
-    expect(screen.queryByText(LIFE_SAFETY_CAUTION)).toBeNull();
+    // the page still reports on smoke and CO, so the caution stays, word for word
+    const lifeSafety = screen.getByRole('region', { name: 'Smoke and carbon monoxide' });
+    expect(within(lifeSafety).getByText('Nothing to point out for the rooms and alarms your firm has recorded.')).toBeInTheDocument();
+    expect(within(lifeSafety).getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
+  });
+
+  it('words the findings Fix, Check or Note and shows a smoke alarm that is not set up to protect as not protecting', async () => {
+    stubApi();
+    renderPortal(`/portal/sites/${SITE_ID}/coverage`);
+    const lifeSafety = await screen.findByRole('region', { name: 'Smoke and carbon monoxide' });
+    const groups = within(lifeSafety).getAllByRole('listitem').filter((li) => li.parentElement?.getAttribute('aria-label') === 'Life-safety findings');
+    // most severe first: the two to fix, then the note
+    expect(groups.map((li) => severityWordIn(li))).toEqual(['Fix', 'Fix', 'Note']);
+    expect(within(groups[2]!).getByText('A smoke alarm in a garage does not count for its level')).toBeInTheDocument();
+    expect(within(lifeSafety).queryByText('Gap')).toBeNull();
+
+    const upstairs = screen.getByRole('region', { name: 'Upstairs' });
+    const notProtecting = within(upstairs).getByRole('list', { name: 'Not set up to protect in Main bedroom' });
+    expect(notProtecting).toHaveTextContent('Not protecting — Stair smoke alarm (smoke alarm) is here but not set up to protect.');
+    // never listed as a device that is there to protect the room
+    expect(within(upstairs).queryByText(/Also here/)).toBeNull();
+    const ground = screen.getByRole('region', { name: 'Ground floor' });
+    expect(within(ground).getByText('Also here: Hall smoke alarm (smoke alarm)')).toBeInTheDocument();
+    expect(within(ground).queryByText(/not set up to protect/)).toBeNull();
+  });
+
+  it('never shows where a rule comes from, even when the answer carries it', async () => {
+    const coverage = makeCoverage();
+    const leaky = coverage.findings.map((f) => ({
+      ...f,
+      source: 'NFPA 72 Chapter 29, locations to avoid — from memory; NFPA 72 §29.8.1 — references.md 4.1 (MEMORY)',
+      evidence: 'memory' as const,
+    }));
+    stubApi({ coverage: { ...coverage, findings: leaky } });
+    renderPortal(`/portal/sites/${SITE_ID}/coverage`);
+    await screen.findByRole('region', { name: 'Smoke and carbon monoxide' });
+    expect(document.body.textContent).not.toMatch(/from memory|references\.md|Source:/i);
   });
 
   it('says the home is not recorded yet when there are no floors', async () => {
@@ -456,14 +536,52 @@ describe('portal devices', () => {
     renderPortal(`/portal/sites/${SITE_ID}/devices`);
     const list = await screen.findByRole('list', { name: 'Devices' });
     const items = within(list).getAllByRole('listitem');
+    const LS = ' (smoke, heat or carbon monoxide: life safety)';
     expect(items.map((li) => li.textContent)).toEqual([
-      `Back doorNothing to changeDoor contact${backDoorDevice.whenArmed}Chimes when opened while the alarm is off`,
-      `Hall smoke alarmBattery due in March 2027Smoke alarm${hallSmokeDevice.whenArmed}No chime`,
-      `Kitchen windowBattery good until June 2029Window contact${kitchenWindowDevice.whenArmed}Chimes when opened while the alarm is off`,
-      `Landing CO alarmReplacement due since November 2026CO alarm${landingCoDevice.whenArmed}No chime`,
+      `Back doorNo battery date on recordDoor contact${backDoorDevice.whenArmed}Chimes when opened while the alarm is off`,
+      `Garage heat alarmCheck the date on its label — replace by March 2031 at the latestHeat alarm${LS}${garageHeatDevice.whenArmed}No chime`,
+      `Hall smoke alarmBattery due in March 2027Smoke alarm${LS}${hallSmokeDevice.whenArmed}No chime`,
+      `Kitchen windowBattery due June 2029Window contact${kitchenWindowDevice.whenArmed}Chimes when opened while the alarm is off`,
+      `Landing CO alarmReplace now: past its end of lifeCO alarm${LS}${landingCoDevice.whenArmed}No chime`,
+      `Stair smoke alarmNot protectingReplace by May 2033Smoke alarm${LS}${NOT_PROTECTING_WORDS}No chime`,
     ]);
     expect(within(items[0]!).getByRole('heading', { level: 2, name: 'Back door' })).toBeInTheDocument();
     expect(screen.getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
+  });
+
+  it('marks each smoke, heat and CO device with the triangle, and shows the caution', async () => {
+    stubApi();
+    renderPortal(`/portal/sites/${SITE_ID}/devices`);
+    const list = await screen.findByRole('list', { name: 'Devices' });
+    const marked = within(list)
+      .getAllByRole('listitem')
+      .filter((li) => li.querySelector('h2 svg path[d^="M8 1.6"]') !== null)
+      .map((li) => li.querySelector('h2')?.textContent);
+    expect(marked).toEqual(['Garage heat alarm', 'Hall smoke alarm', 'Landing CO alarm', 'Stair smoke alarm']);
+    expect(screen.getByText('The triangle marks smoke, heat and carbon monoxide alarms.')).toBeInTheDocument();
+    expect(screen.getByText(LIFE_SAFETY_CAUTION)).toBeInTheDocument();
+  });
+
+  it('never says “Nothing to change” or “Good until”, and asks for the label date when the manufacture date is missing', async () => {
+    stubApi();
+    renderPortal(`/portal/sites/${SITE_ID}/devices`);
+    const list = await screen.findByRole('list', { name: 'Devices' });
+    expect(document.body.textContent).not.toMatch(/Nothing to change|Good until|good until/);
+    const garage = within(list).getByRole('heading', { level: 2, name: 'Garage heat alarm' }).closest('li')!;
+    expect(within(garage).getByText('Check the date on its label — replace by March 2031 at the latest')).toBeInTheDocument();
+    const smoke = within(list).getByRole('heading', { level: 2, name: 'Hall smoke alarm' }).closest('li')!;
+    expect(within(smoke).queryByText(/Good until/)).toBeNull();
+  });
+
+  it('shows “Not protecting” on a smoke alarm whose zone does not protect, with the words that say why', async () => {
+    stubApi();
+    renderPortal(`/portal/sites/${SITE_ID}/devices`);
+    const list = await screen.findByRole('list', { name: 'Devices' });
+    const stair = within(list).getByRole('heading', { level: 2, name: 'Stair smoke alarm' }).closest('li')!;
+    expect(within(stair).getByText('Not protecting')).toBeInTheDocument();
+    expect(within(stair).getByText(NOT_PROTECTING_WORDS)).toBeInTheDocument();
+    // only that one
+    expect(within(list).getAllByText('Not protecting')).toHaveLength(1);
   });
 
   it('says when no device is recorded', async () => {
@@ -679,26 +797,71 @@ describe('portal documents', () => {
 // ---------------------------------------------------------------------------------------------
 
 describe('life words', () => {
-  it('words a battery as due, soon or ok', () => {
-    expect(lifeWords({ state: 'due', batteryDueOn: '2026-10-01', endOfLifeOn: null })).toEqual({ text: 'Battery due since October 2026', tone: 'bad' });
-    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: null })).toEqual({ text: 'Battery due in March 2027', tone: 'warn' });
-    expect(lifeWords({ state: 'ok', batteryDueOn: '2029-06-30', endOfLifeOn: null })).toEqual({ text: 'Battery good until June 2029', tone: 'ok' });
+  const noBasis = { endOfLifeBasis: null };
+
+  it('words a battery as due, soon or ok, and says when no date is on record', () => {
+    expect(lifeWords({ state: 'due', batteryDueOn: '2026-10-01', endOfLifeOn: null, ...noBasis })).toEqual({ text: 'Battery due since October 2026', tone: 'bad' });
+    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: null, ...noBasis })).toEqual({ text: 'Battery due in March 2027', tone: 'warn' });
+    expect(lifeWords({ state: 'ok', batteryDueOn: '2029-06-30', endOfLifeOn: null, ...noBasis })).toEqual({ text: 'Battery due June 2029', tone: 'neutral' });
+    expect(lifeWords({ state: 'ok', batteryDueOn: null, endOfLifeOn: null, ...noBasis })).toEqual({ text: 'No battery date on record', tone: 'neutral' });
   });
 
-  it('words a replacement as due, soon or ok', () => {
-    expect(lifeWords({ state: 'due', batteryDueOn: null, endOfLifeOn: '2026-11-02' })).toEqual({ text: 'Replacement due since November 2026', tone: 'bad' });
-    expect(lifeWords({ state: 'soon', batteryDueOn: null, endOfLifeOn: '2027-01-31' })).toEqual({ text: 'Replacement due in January 2027', tone: 'warn' });
-    expect(lifeWords({ state: 'ok', batteryDueOn: null, endOfLifeOn: '2034-08-01' })).toEqual({ text: 'Good until August 2034', tone: 'ok' });
+  it('words a smoke, heat or CO device by when to replace it, from its manufacture date', () => {
+    const made = { endOfLifeBasis: 'manufactured' as const };
+    expect(lifeWords({ state: 'ok', batteryDueOn: null, endOfLifeOn: '2034-08-01', ...made }, true)).toEqual({ text: 'Replace by August 2034', tone: 'ok' });
+    expect(lifeWords({ state: 'soon', batteryDueOn: null, endOfLifeOn: '2027-01-31', ...made }, true)).toEqual({ text: 'Replace by January 2027', tone: 'warn' });
+    expect(lifeWords({ state: 'due', batteryDueOn: null, endOfLifeOn: '2026-11-02', ...made }, true)).toEqual({ text: 'Replace now: past its end of life', tone: 'bad' });
+    // the battery when it comes first and is near or past
+    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: '2034-08-01', ...made }, true)).toEqual({ text: 'Battery due in March 2027', tone: 'warn' });
+    expect(lifeWords({ state: 'due', batteryDueOn: '2026-09-01', endOfLifeOn: '2034-08-01', ...made }, true)).toEqual({ text: 'Battery due since September 2026', tone: 'bad' });
+    // replacing it renews the battery: the end of life wins a tie
+    expect(lifeWords({ state: 'due', batteryDueOn: '2026-09-01', endOfLifeOn: '2026-09-01', ...made }, true).text).toBe('Replace now: past its end of life');
+    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: '2027-02-01', ...made }, true).text).toBe('Replace by February 2027');
   });
 
-  it('words whichever of battery and replacement comes first (replacement on a tie)', () => {
-    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: '2034-08-01' }).text).toBe('Battery due in March 2027');
-    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: '2027-02-01' }).text).toBe('Replacement due in February 2027');
-    expect(lifeWords({ state: 'due', batteryDueOn: '2026-09-01', endOfLifeOn: '2026-09-01' }).text).toBe('Replacement due since September 2026');
+  it('never says “Nothing to change” or “Good until” about a smoke, heat or CO device', () => {
+    const lives = [
+      { state: 'ok', batteryDueOn: null, endOfLifeOn: '2034-08-01', endOfLifeBasis: 'manufactured' },
+      { state: 'ok', batteryDueOn: '2029-06-30', endOfLifeOn: '2034-08-01', endOfLifeBasis: 'manufactured' },
+      { state: 'check', batteryDueOn: null, endOfLifeOn: '2031-03-20', endOfLifeBasis: 'installed' },
+      { state: 'check', batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: 'unknown' },
+      { state: 'ok', batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: null },
+    ] as const;
+    for (const life of lives) {
+      const { text } = lifeWords(life, true);
+      expect(text).not.toMatch(/Nothing to change|Good until|good until/);
+    }
+    // a smoke alarm with no dates at all is not "nothing to change" either
+    expect(lifeWords({ state: 'ok', batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: null }, true)).toEqual({ text: 'Check the date on its label', tone: 'warn' });
   });
 
-  it('says “Nothing to change” without dates', () => {
-    expect(lifeWords({ state: 'ok', batteryDueOn: null, endOfLifeOn: null })).toEqual({ text: 'Nothing to change', tone: 'neutral' });
+  it('asks for the date on the label when the manufacture date is not on record', () => {
+    const fitted = { endOfLifeBasis: 'installed' as const };
+    expect(lifeWords({ state: 'check', batteryDueOn: null, endOfLifeOn: '2031-03-20', ...fitted }, true)).toEqual({
+      text: 'Check the date on its label — replace by March 2031 at the latest',
+      tone: 'warn',
+    });
+    expect(lifeWords({ state: 'soon', batteryDueOn: null, endOfLifeOn: '2027-01-31', ...fitted }, true)).toEqual({
+      text: 'Replace by January 2027 at the latest — check the date on its label',
+      tone: 'warn',
+    });
+    // even installation + the period has passed: no number of years is claimed
+    expect(lifeWords({ state: 'due', batteryDueOn: null, endOfLifeOn: '2026-02-01', ...fitted }, true)).toEqual({ text: 'Replace now: even the latest date has passed', tone: 'bad' });
+    expect(lifeWords({ state: 'due', batteryDueOn: '2026-09-01', endOfLifeOn: '2031-03-20', ...fitted }, true)).toEqual({
+      text: 'Battery due since September 2026 — check the date on its label',
+      tone: 'bad',
+    });
+    // neither date on record
+    expect(lifeWords({ state: 'check', batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: 'unknown' }, true)).toEqual({ text: 'Check the date on its label', tone: 'warn' });
+    expect(lifeWords({ state: 'soon', batteryDueOn: '2027-03-14', endOfLifeOn: null, endOfLifeBasis: 'unknown' }, true)).toEqual({
+      text: 'Battery due in March 2027 — check the date on its label',
+      tone: 'warn',
+    });
+  });
+
+  it('words a device as life safety from its life when the flag is missing', () => {
+    expect(lifeWords({ state: 'check', batteryDueOn: null, endOfLifeOn: '2031-03-20', endOfLifeBasis: 'installed' }).text).toBe('Check the date on its label — replace by March 2031 at the latest');
+    expect(lifeWords({ state: 'ok', batteryDueOn: null, endOfLifeOn: '2034-08-01' }).text).toBe('Replace by August 2034');
   });
 
   const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];

@@ -21,7 +21,7 @@ const emptyCoverage: ApiCoverage = {
 };
 
 /** A small in-memory premises server: what is posted shows up in the next GET. */
-function stubPremisesApi(start: ApiFloor[] = []) {
+function stubPremisesApi(start: ApiFloor[] = [], patchError?: Record<string, string>) {
   const premises: ApiPremises = { floors: structuredClone(start), zones: [] };
   let next = 1;
   const fetchMock = vi.fn((url: string, init?: RequestInit) => {
@@ -53,6 +53,13 @@ function stubPremisesApi(start: ApiFloor[] = []) {
         .find((r) => r.id === openingPost[1])!
         .openings.push(opening);
       return created(opening);
+    }
+    const roomPatch = /^\/api\/rooms\/([^/]+)$/.exec(path);
+    if (method === 'PATCH' && roomPatch) {
+      if (patchError) return Promise.resolve(jsonResponse(400, { error: { code: 'validation_failed', message: 'Check the highlighted fields.', fields: patchError } }));
+      const room = premises.floors.flatMap((f) => f.rooms).find((r) => r.id === roomPatch[1])!;
+      Object.assign(room, body);
+      return Promise.resolve(jsonResponse(200, { data: room }));
     }
     const floorDelete = /^\/api\/floors\/([^/]+)$/.exec(path);
     if (method === 'DELETE' && floorDelete) {
@@ -107,7 +114,7 @@ describe('premises page', () => {
     await user.keyboard('{Enter}');
     await waitFor(() =>
       expect(sent('POST', '/api/floors/f1/rooms')).toEqual([
-        { name: 'Bedroom 2', kind: 'bedroom', fuelBurningAppliance: false, attachedGarage: false },
+        { name: 'Bedroom 2', kind: 'bedroom', fuelBurningAppliance: false, attachedGarage: false, servedByHallId: null, hallWithin21FtConfirmed: false, attachedToBedroomId: null },
       ]),
     );
 
@@ -171,6 +178,132 @@ describe('premises page', () => {
     await user.click(screen.getByRole('button', { name: 'Delete floor' }));
     await waitFor(() => expect(fetchMock.mock.calls.some(([url, init]) => url === '/api/floors/f9' && init?.method === 'DELETE')).toBe(true));
     await waitFor(() => expect(screen.queryByRole('heading', { name: 'Basement' })).toBeNull());
+  });
+});
+
+describe('premises page, sleeping areas', () => {
+  const LANDING = 'aaaaaaaa-0000-4000-8000-000000000001';
+  const KITCHEN = 'aaaaaaaa-0000-4000-8000-000000000002';
+  const MAIN_BEDROOM = 'aaaaaaaa-0000-4000-8000-000000000003';
+  const EN_SUITE = 'aaaaaaaa-0000-4000-8000-000000000004';
+  const STUDY = 'aaaaaaaa-0000-4000-8000-000000000005';
+  const DEN = 'aaaaaaaa-0000-4000-8000-000000000006';
+  const room = (id: string, floorId: string, name: string, kind: ApiFloor['rooms'][number]['kind'], extra: Partial<ApiFloor['rooms'][number]> = {}) => ({
+    id,
+    floorId,
+    name,
+    kind,
+    fuelBurningAppliance: false,
+    attachedGarage: false,
+    servedByHallId: null,
+    hallWithin21FtConfirmed: false,
+    attachedToBedroomId: null,
+    openings: [],
+    ...extra,
+  });
+  const floors = (): ApiFloor[] => [
+    {
+      id: 'f1',
+      siteId: 's1',
+      name: 'Ground floor',
+      level: 0,
+      belowGrade: false,
+      planImageId: null,
+      planImageUrl: null,
+      rooms: [room(DEN, 'f1', 'Den', 'living')],
+    },
+    {
+      id: 'f2',
+      siteId: 's1',
+      name: 'Upstairs',
+      level: 1,
+      belowGrade: false,
+      planImageId: null,
+      planImageUrl: null,
+      rooms: [
+        room(LANDING, 'f2', 'Upstairs landing', 'hall'),
+        room(KITCHEN, 'f2', 'Kitchenette', 'kitchen'),
+        room(MAIN_BEDROOM, 'f2', 'Main bedroom', 'bedroom'),
+        room(EN_SUITE, 'f2', 'En-suite', 'bath'),
+        room(STUDY, 'f2', 'Study', 'office'),
+      ],
+    },
+  ];
+
+  const optionTexts = (select: HTMLElement) => within(select).getAllByRole('option').map((o) => o.textContent);
+
+  it('offers a bedroom only the rooms that can serve its sleeping area, sends the hall and the 21 ft confirmation, and shows them in words', async () => {
+    const { sent } = stubPremisesApi(floors());
+    const user = userEvent.setup();
+    renderPremises();
+
+    // before a hall is chosen the bedroom says so
+    const bedroomRow = (await screen.findByRole('heading', { name: /Main bedroom/ })).closest('li')!;
+    expect(within(bedroomRow).getByText('Sleeping area: no hall or landing chosen')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Edit Main bedroom' }));
+    const form = await screen.findByRole('form', { name: 'Edit Main bedroom' });
+    const hall = within(form).getByLabelText<HTMLSelectElement>('Hall or landing outside it');
+    // halls, living rooms, offices and the like, from every floor: never a kitchen, a bathroom or the bedroom itself
+    expect(optionTexts(hall)).toEqual(['Not chosen yet', 'Den', 'Upstairs landing', 'Study']);
+    expect(within(hall).getByRole('group', { name: 'Upstairs' })).toBeInTheDocument();
+    const within21 = within(form).getByLabelText('Door within 21 ft of that hall’s alarm (measured on site along the path of travel)');
+    expect(within21).toBeDisabled();
+
+    await user.selectOptions(hall, LANDING);
+    expect(within21).toBeEnabled();
+    await user.click(within21);
+    await user.click(within(form).getByRole('button', { name: 'Save' }));
+
+    await waitFor(() => expect(sent('PATCH', `/api/rooms/${MAIN_BEDROOM}`)).toHaveLength(1));
+    expect(sent('PATCH', `/api/rooms/${MAIN_BEDROOM}`)[0]).toMatchObject({
+      kind: 'bedroom',
+      servedByHallId: LANDING,
+      hallWithin21FtConfirmed: true,
+      attachedToBedroomId: null,
+    });
+    const saved = (await screen.findByRole('heading', { name: /Main bedroom/ })).closest('li')!;
+    await waitFor(() => expect(saved).toHaveTextContent('Sleeping area: Upstairs landing · 21 ft confirmed'));
+  });
+
+  it('says “not confirmed” until the distance is confirmed, and names a hall on another floor with its floor', async () => {
+    const start = floors();
+    start[1]!.rooms[2] = room(MAIN_BEDROOM, 'f2', 'Main bedroom', 'bedroom', { servedByHallId: DEN });
+    stubPremisesApi(start);
+    renderPremises();
+    const bedroomRow = (await screen.findByRole('heading', { name: /Main bedroom/ })).closest('li')!;
+    expect(bedroomRow).toHaveTextContent('Sleeping area: Den (Ground floor) · 21 ft not confirmed');
+  });
+
+  it('offers a bathroom only the bedrooms, and shows the link', async () => {
+    const { sent } = stubPremisesApi(floors());
+    const user = userEvent.setup();
+    renderPremises();
+    await user.click(await screen.findByRole('button', { name: 'Edit En-suite' }));
+    const form = await screen.findByRole('form', { name: 'Edit En-suite' });
+    expect(within(form).queryByLabelText('Hall or landing outside it')).toBeNull();
+    const bedroom = within(form).getByLabelText<HTMLSelectElement>('Attached to bedroom');
+    expect(optionTexts(bedroom)).toEqual(['Not attached to a bedroom', 'Main bedroom']);
+    await user.selectOptions(bedroom, MAIN_BEDROOM);
+    await user.click(within(form).getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(sent('PATCH', `/api/rooms/${EN_SUITE}`)[0]).toMatchObject({ kind: 'bath', attachedToBedroomId: MAIN_BEDROOM, servedByHallId: null }));
+    const row = (await screen.findByRole('heading', { name: /En-suite/ })).closest('li')!;
+    await waitFor(() => expect(row).toHaveTextContent('Attached to bedroom: Main bedroom'));
+  });
+
+  it('shows the server’s refusal against the hall field', async () => {
+    const message = 'Choose a room of this site.';
+    stubPremisesApi(floors(), { servedByHallId: message });
+    const user = userEvent.setup();
+    renderPremises();
+    await user.click(await screen.findByRole('button', { name: 'Edit Main bedroom' }));
+    const form = await screen.findByRole('form', { name: 'Edit Main bedroom' });
+    const hall = within(form).getByLabelText('Hall or landing outside it');
+    await user.selectOptions(hall, STUDY);
+    await user.click(within(form).getByRole('button', { name: 'Save' }));
+    const error = await within(form).findByText(message);
+    expect(hall).toHaveAttribute('aria-invalid', 'true');
+    expect(hall.getAttribute('aria-describedby')).toContain(error.id);
   });
 });
 

@@ -73,4 +73,44 @@ describe('zone form', () => {
     const body = JSON.parse(post![1]!.body as string);
     expect(body).toMatchObject({ number: 12, description: 'Den window', deviceType: 'window_contact', zoneType: 'perimeter', serial: '0412877', input: 1, chime: true });
   });
+
+  it('names the standard of each life-safety device type in the device-type select', () => {
+    vi.stubGlobal('fetch', vi.fn());
+    renderForm();
+    const select = screen.getByLabelText('Device type');
+    const label = (value: string) => select.querySelector<HTMLOptionElement>(`option[value="${value}"]`)!.textContent;
+    expect(label('smoke')).toBe('Smoke alarm (UL 217)');
+    expect(label('smoke_detector')).toBe('System smoke detector (UL 268)');
+    expect(label('smoke_co')).toBe('Smoke and CO alarm (combination, UL 217 and UL 2034)');
+    expect(label('co')).toBe('CO alarm (UL 2034)');
+    expect(label('heat')).toBe('Heat alarm (UL 521)');
+    expect(label('window_contact')).toBe('Window contact');
+  });
+
+  it('warns, naming what to change, when a life-safety device’s behaviour would keep it from protecting', async () => {
+    vi.stubGlobal('fetch', vi.fn());
+    renderForm();
+    await userEvent.selectOptions(screen.getByLabelText('Device type'), 'smoke');
+    // the defaults for a smoke alarm protect
+    expect(screen.getByText(/Programmed to protect: “Fire, always armed”, reported and supervised\./)).toBeInTheDocument();
+    expect(screen.queryByText(/does not count as protection/)).toBeNull();
+
+    await userEvent.selectOptions(screen.getByLabelText('Zone type'), 'perimeter');
+    await userEvent.click(screen.getByLabelText('Supervised'));
+    expect(screen.getByText('As set, this smoke alarm does not count as protection.')).toBeInTheDocument();
+    expect(screen.getByText(/set its zone type to Fire, always armed\./)).toBeInTheDocument();
+    expect(screen.getByText(/turn on “Supervised”\./)).toBeInTheDocument();
+    expect(screen.queryByText(/turn on “Reports to the monitoring center”/)).toBeNull();
+
+    await userEvent.click(screen.getByLabelText('Reports to monitoring center'));
+    expect(screen.getByText(/turn on “Reports to the monitoring center”\./)).toBeInTheDocument();
+
+    // a CO alarm belongs on a CO zone
+    await userEvent.selectOptions(screen.getByLabelText('Device type'), 'co');
+    expect(screen.getByText(/set its zone type to CO, always armed\./)).toBeInTheDocument();
+
+    // not a life-safety device: nothing to say
+    await userEvent.selectOptions(screen.getByLabelText('Device type'), 'window_contact');
+    expect(screen.queryByText(/does not count as protection/)).toBeNull();
+  });
 });

@@ -1,8 +1,15 @@
-/** Coverage: protected openings, the summary line, interior detection, and the life-safety rules with their sources. */
+/**
+ * Coverage: protected openings, the summary line, interior detection, and the life-safety rules
+ * with their sources. Every rule checked below names its source beside the check: the document,
+ * edition and clause, and the references.md row (PUBLIC or MEMORY), or "common practice, no
+ * published source". All premises are invented.
+ */
 import { describe, expect, it } from 'vitest';
 import {
   COVERAGE_FINDING_CODES,
   COVERAGE_RULES,
+  SLEEPING_AREA_HALL_KINDS,
+  canServeSleepingArea,
   computeCoverage,
   countOpeningsInWords,
   coverageCaution,
@@ -15,8 +22,10 @@ import {
   type CoverageRoomInput,
   type CoverageZoneInput,
 } from '@domain/coverage';
+import type { DeviceType } from '@domain/devices';
 import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
-import type { OpeningKind } from '@domain/premises';
+import { ROOM_KINDS, type OpeningKind } from '@domain/premises';
+import { zoneDefaultsFor } from '@domain/zones';
 
 // --- small invented premises ------------------------------------------------------------------
 
@@ -26,16 +35,33 @@ function floor(id: string, name: string, level: number, belowGrade = level < 0):
 function room(id: string, floorId: string, name: string, kind: CoverageRoomInput['kind'], extra: Partial<CoverageRoomInput> = {}): CoverageRoomInput {
   return { id, floorId, name, kind, fuelBurningAppliance: false, attachedGarage: false, ...extra };
 }
+/** A bedroom that names the hall serving its sleeping area, its door confirmed within 21 ft of that hall's alarm. */
+function bedroom(id: string, floorId: string, name: string, hallId: string | null, extra: Partial<CoverageRoomInput> = {}): CoverageRoomInput {
+  return room(id, floorId, name, 'bedroom', { servedByHallId: hallId, hallWithin21FtConfirmed: hallId !== null, ...extra });
+}
 function opening(id: string, roomId: string, label: string, kind: OpeningKind = 'window', groundReachable = true): CoverageOpeningInput {
   return { id, roomId, kind, label, groundReachable };
 }
-/** A contact on an opening. */
-function contact(id: string, openingId: string, description: string, extra: Partial<CoverageZoneInput> = {}): CoverageZoneInput {
-  return { id, description, deviceType: 'window_contact', status: 'active', roomId: null, openingId, ...extra };
+/** The Behaviour fields a zone gets from its device type (zones.ts), as a technician enrols it. */
+function behaviour(deviceType: DeviceType): Pick<CoverageZoneInput, 'zoneType' | 'reportsToMonitoring' | 'supervised'> {
+  const { zoneType, reportsToMonitoring, supervised } = zoneDefaultsFor(deviceType);
+  return { zoneType, reportsToMonitoring, supervised };
 }
-/** A room device (motion, glass-break, smoke, heat, CO). */
-function device(id: string, roomId: string, deviceType: CoverageZoneInput['deviceType'], extra: Partial<CoverageZoneInput> = {}): CoverageZoneInput {
-  return { id, description: `${roomId} ${deviceType}`, deviceType, status: 'active', roomId, openingId: null, ...extra };
+/** A contact on an opening, programmed with the defaults for its device type. */
+function contact(id: string, openingId: string, description: string, extra: Partial<CoverageZoneInput> = {}): CoverageZoneInput {
+  const deviceType = extra.deviceType ?? 'window_contact';
+  return { id, description, deviceType, ...behaviour(deviceType), status: 'active', roomId: null, openingId, ...extra };
+}
+/** A room device (motion, glass-break, smoke, heat, CO), programmed with the defaults for its device type. */
+function device(id: string, roomId: string, deviceType: DeviceType, extra: Partial<CoverageZoneInput> = {}): CoverageZoneInput {
+  return { id, description: `${roomId} ${deviceType}`, deviceType, ...behaviour(deviceType), status: 'active', roomId, openingId: null, ...extra };
+}
+/** A combination smoke and CO alarm enrolled as two zones with one serial: smoke input on a fire zone, CO input on a CO zone. */
+function combination(id: string, roomId: string, serial: string): CoverageZoneInput[] {
+  return [
+    device(`${id}-fire`, roomId, 'smoke_co', { description: `${roomId} smoke/CO (smoke)`, serial }),
+    device(`${id}-co`, roomId, 'smoke_co', { description: `${roomId} smoke/CO (CO)`, serial, zoneType: 'co_24h' }),
+  ];
 }
 function premises(parts: Partial<CoverageInput>): CoverageInput {
   return { floors: [], rooms: [], openings: [], zones: [], ...parts };
@@ -43,10 +69,13 @@ function premises(parts: Partial<CoverageInput>): CoverageInput {
 const codes = (r: CoverageResult) => r.findings.map((f) => f.code);
 const withCode = (r: CoverageResult, code: string) => r.findings.filter((f) => f.code === code);
 const lifeSafety = (r: CoverageResult) => r.findings.filter((f) => f.lifeSafety);
+/** The codes one result has and the other lacks. */
+const difference = (a: CoverageResult, b: CoverageResult) => codes(a).filter((c) => !codes(b).includes(c));
 
 /**
  * A compliant two-storey house with a basement (invented): a furnace in the basement utility room
- * and an attached garage, so CO alarms are required too.
+ * and an attached garage, so CO alarms are required too. Both bedrooms name the landing as the
+ * hall serving their sleeping area, and their doors are confirmed within 21 ft of its alarm.
  */
 function compliantHouse(): CoverageInput {
   return premises({
@@ -57,8 +86,8 @@ function compliantHouse(): CoverageInput {
       room('gf-hall', 'gf', 'Hall', 'hall'),
       room('gf-kit', 'gf', 'Kitchen', 'kitchen'),
       room('gf-gar', 'gf', 'Garage', 'garage', { attachedGarage: true }),
-      room('up-b1', 'up', 'Bedroom 1', 'bedroom'),
-      room('up-b2', 'up', 'Bedroom 2', 'bedroom'),
+      bedroom('up-b1', 'up', 'Bedroom 1', 'up-land'),
+      bedroom('up-b2', 'up', 'Bedroom 2', 'up-land'),
       room('up-land', 'up', 'Landing', 'hall'),
     ],
     openings: [
@@ -91,11 +120,11 @@ function compliantHouse(): CoverageInput {
   });
 }
 
-/** One floor, one bedroom and a landing: the base for the sleeping-room rules. */
-function oneBedroomFloor(zones: CoverageZoneInput[], extraRooms: CoverageRoomInput[] = []): CoverageInput {
+/** One floor, one bedroom served by the landing (door within 21 ft confirmed): the base for the sleeping-room rules. */
+function oneBedroomFloor(zones: CoverageZoneInput[], extraRooms: CoverageRoomInput[] = [], bed: Partial<CoverageRoomInput> = {}): CoverageInput {
   return premises({
     floors: [floor('f1', 'Upstairs', 1)],
-    rooms: [room('bed', 'f1', 'Bedroom', 'bedroom'), room('land', 'f1', 'Landing', 'hall'), ...extraRooms],
+    rooms: [bedroom('bed', 'f1', 'Bedroom', 'land', bed), room('land', 'f1', 'Landing', 'hall'), ...extraRooms],
     zones,
   });
 }
@@ -245,18 +274,128 @@ describe('floors, rooms and openings', () => {
         ],
       }),
     );
-    expect(r.floors[0]?.rooms[0]?.devices).toEqual([{ zoneId: 'm', description: 'Kitchen motion', deviceType: 'motion' }]);
+    // `counts` is new: false only for a life-safety device whose zone cannot protect (life-safety-zone.ts)
+    expect(r.floors[0]?.rooms[0]?.devices).toEqual([{ zoneId: 'm', description: 'Kitchen motion', deviceType: 'motion', counts: true }]);
   });
 });
 
-// --- life safety ------------------------------------------------------------------------------------
+// --- life safety: the zone check --------------------------------------------------------------------
+
+describe('a smoke alarm counts only as its zone is programmed (life-safety-zone.ts)', () => {
+  /** The same house each time; only the landing alarm's zone differs. */
+  const house = (landing: Partial<CoverageZoneInput> = {}) =>
+    computeCoverage(
+      oneBedroomFloor([device('s-bed', 'bed', 'smoke'), device('s-land', 'land', 'smoke', { number: 7, description: 'Landing smoke', ...landing })]),
+    );
+  const baseline = house();
+
+  it('programmed as the defaults give it (fire, reported, supervised), the house has no findings', () => {
+    // NFPA 72 Ch. 29 required detection: sleeping room and outside the sleeping area — references.md 4.1 (PUBLIC)
+    expect(baseline.findings).toEqual([]);
+    expect(baseline.floors[0]?.rooms.find((r) => r.id === 'land')?.devices).toEqual([
+      { zoneId: 's-land', description: 'Landing smoke', deviceType: 'smoke', counts: true },
+    ]);
+  });
+
+  it('on a chime-only zone it does not count, and the hall is left without an alarm', () => {
+    // CP-01 §4.2.5.1 fire exempt from any abort window — references.md 1.14 (PUBLIC); a chime-only zone never raises an alarm at all
+    const r = house({ zoneType: 'monitor_only' });
+    expect(difference(r, baseline).sort()).toEqual(['life_safety_zone_programming', 'smoke_missing_outside_sleeping_area']);
+    const [zoneFinding] = withCode(r, 'life_safety_zone_programming');
+    expect(zoneFinding).toMatchObject({ severity: 'error', evidence: 'public', zoneId: 's-land', roomId: 'land', floorId: 'f1', lifeSafety: true });
+    expect(zoneFinding?.source).toContain('references.md 1.14 (PUBLIC)');
+    expect(zoneFinding?.message).toMatch(/^Zone 7 “Landing smoke”: /);
+    expect(zoneFinding?.message).toContain('only chimes');
+    expect(zoneFinding?.message).toContain('set its zone type to Fire, always armed');
+    // NFPA 72 Ch. 29 outside each separate sleeping area — references.md 4.1 (PUBLIC)
+    expect(withCode(r, 'smoke_missing_outside_sleeping_area')[0]?.message).toContain('“Landing smoke” is not programmed to protect');
+    expect(r.floors[0]?.rooms.find((x) => x.id === 'land')?.devices[0]?.counts).toBe(false);
+  });
+
+  it('on a burglary zone it does not count, because the abort window and swinger shutdown would apply', () => {
+    // CP-01 §4.2.5.1 fire exempt from the abort window — references.md 1.14 (PUBLIC); §4.3.2 swinger shutdown not on fire — references.md 1.20 (from memory)
+    const r = house({ zoneType: 'perimeter' });
+    expect(difference(r, baseline).sort()).toEqual(['life_safety_zone_programming', 'smoke_missing_outside_sleeping_area']);
+    expect(withCode(r, 'life_safety_zone_programming')[0]?.message).toContain('abort window and swinger shutdown');
+  });
+
+  it('when it does not report to the monitoring center it does not count', () => {
+    // A monitored life-safety device reports to the monitoring center — common practice, no published source
+    const r = house({ reportsToMonitoring: false });
+    expect(difference(r, baseline).sort()).toEqual(['life_safety_zone_programming', 'smoke_missing_outside_sleeping_area']);
+    expect(withCode(r, 'life_safety_zone_programming')[0]?.message).toContain('turn on “Reports to the monitoring center”');
+  });
+
+  it('when it is not supervised it does not count', () => {
+    // NFPA 72 §23.16.2 low-power radio: depletion signal and trouble resound — references.md 4.11–4.12 (PUBLIC); household supervision window 4.14 (from memory)
+    const r = house({ supervised: false });
+    expect(difference(r, baseline).sort()).toEqual(['life_safety_zone_programming', 'smoke_missing_outside_sleeping_area']);
+    expect(withCode(r, 'life_safety_zone_programming')[0]?.message).toContain('turn on “Supervised”');
+  });
+
+  it('in a bedroom, programmed wrong, leaves the bedroom without an alarm', () => {
+    // NFPA 72 Ch. 29 a smoke alarm in every sleeping room — references.md 4.1 (PUBLIC)
+    const r = computeCoverage(oneBedroomFloor([device('s-bed', 'bed', 'smoke', { description: 'Bedroom smoke', zoneType: 'entry_exit' }), device('s-land', 'land', 'smoke')]));
+    expect(codes(r).sort()).toEqual(['life_safety_zone_programming', 'smoke_missing_sleeping_room']);
+    expect(withCode(r, 'smoke_missing_sleeping_room')[0]?.message).toContain('“Bedroom smoke” is not programmed to protect');
+  });
+
+  it('a system smoke detector on a fire zone counts as the smoke detection a bedroom needs', () => {
+    // NFPA 72 Ch. 29 required smoke alarm / detector locations — references.md 4.1 (PUBLIC)
+    const r = computeCoverage(oneBedroomFloor([device('d-bed', 'bed', 'smoke_detector'), device('s-land', 'land', 'smoke')]));
+    expect(r.findings).toEqual([]);
+  });
+
+  it('a wrongly programmed alarm that is bypassed is named as bypassed, not as a programming problem', () => {
+    // A bypassed alarm protects no one — common practice, no published source
+    const r = computeCoverage(oneBedroomFloor([device('s-bed', 'bed', 'smoke', { status: 'bypassed', zoneType: 'perimeter' }), device('s-land', 'land', 'smoke')]));
+    expect(codes(r).sort()).toEqual(['smoke_bypassed_only', 'smoke_missing_sleeping_room']);
+  });
+});
+
+describe('a combination smoke and CO alarm', () => {
+  // The attached garage makes CO alarms required — IRC 2018 §R315.1 — references.md 4.15 (PUBLIC)
+  const garage = room('gar', 'f1', 'Garage', 'garage', { attachedGarage: true });
+
+  it('enrolled as two zones with one serial protects against smoke and CO', () => {
+    // NFPA 72 Ch. 29 — references.md 4.1 (PUBLIC); IRC §R315.3 CO outside each sleeping area — references.md 4.16 (PUBLIC)
+    const r = computeCoverage(oneBedroomFloor([...combination('bed', 'bed', 'SN-100'), ...combination('land', 'land', 'SN-200')], [garage]));
+    expect(r.findings).toEqual([]);
+  });
+
+  it('enrolled on the fire zone only protects against smoke, and the CO half is asked for', () => {
+    // IRC 2015/2018 §R315.3 CO outside each separate sleeping area — references.md 4.16 (PUBLIC)
+    const [landingFire] = combination('land', 'land', 'SN-200');
+    const r = computeCoverage(oneBedroomFloor([...combination('bed', 'bed', 'SN-100'), landingFire!], [garage]));
+    const [half] = withCode(r, 'life_safety_zone_programming');
+    // only a half missing: a warning, because the enrolled smoke half still protects
+    expect(half).toMatchObject({ severity: 'warning', zoneId: 'land-fire' });
+    expect(half?.message).toContain('a combination alarm whose CO input has no CO, always armed zone');
+    expect(codes(r)).not.toContain('smoke_missing_outside_sleeping_area');
+    expect(withCode(r, 'co_missing_outside_sleeping_area')[0]?.message).toContain('is not programmed to protect');
+  });
+
+  it('with its two zones under different serials: each half is asked to be paired, and each still protects what it carries', () => {
+    // IRC 2015/2018 §R315.3 — references.md 4.16 (PUBLIC): the CO zone is on a CO zone type, in service,
+    // reported and supervised, so it counts near the bedrooms; the serials only fail to pair the halves.
+    const [fire, co] = combination('land', 'land', 'SN-200');
+    const r = computeCoverage(oneBedroomFloor([...combination('bed', 'bed', 'SN-100'), fire!, { ...co!, serial: 'SN-201' }], [garage]));
+    expect(codes(r)).toEqual(['life_safety_zone_programming', 'life_safety_zone_programming']);
+    expect(withCode(r, 'life_safety_zone_programming').map((f) => [f.zoneId, f.severity]).sort()).toEqual([
+      ['land-co', 'warning'],
+      ['land-fire', 'warning'],
+    ]);
+  });
+});
+
+// --- life safety: sleeping rooms, sleeping areas, levels --------------------------------------------
 
 describe('smoke alarms (NFPA 72 Chapter 29)', () => {
   it('are required in every sleeping room', () => {
     // NFPA 72 Ch. 29: a smoke alarm in every sleeping room — references.md 4.1 (PUBLIC)
     const r = computeCoverage(oneBedroomFloor([device('s', 'land', 'smoke')]));
     const [f] = withCode(r, 'smoke_missing_sleeping_room');
-    expect(f).toMatchObject({ severity: 'error', floorId: 'f1', roomId: 'bed', lifeSafety: true });
+    expect(f).toMatchObject({ severity: 'error', evidence: 'public', floorId: 'f1', roomId: 'bed', zoneId: null, lifeSafety: true });
     expect(f?.source).toContain('NFPA 72');
     expect(f?.source).toContain('references.md 4.1 (PUBLIC)');
     expect(f?.message).toContain('Bedroom (Upstairs)');
@@ -266,6 +405,7 @@ describe('smoke alarms (NFPA 72 Chapter 29)', () => {
   it('are not replaced by a heat alarm', () => {
     // NFPA 72 Ch. 29: a smoke alarm in every sleeping room — references.md 4.1 (PUBLIC); a heat alarm is not one
     const r = computeCoverage(oneBedroomFloor([device('s', 'land', 'smoke'), device('h', 'bed', 'heat')]));
+    expect(codes(r)).toEqual(['smoke_missing_sleeping_room']);
     expect(withCode(r, 'smoke_missing_sleeping_room')[0]?.message).toContain('heat alarm there does not count');
   });
 
@@ -277,22 +417,105 @@ describe('smoke alarms (NFPA 72 Chapter 29)', () => {
     expect(withCode(r, 'smoke_missing_sleeping_room')[0]?.message).toContain('“Bedroom smoke” is bypassed');
     // A bypassed alarm protects no one — common practice, no published source
     const [w] = withCode(r, 'smoke_bypassed_only');
-    expect(w).toMatchObject({ severity: 'warning', roomId: 'bed', lifeSafety: true });
+    expect(w).toMatchObject({ severity: 'warning', evidence: 'practice', roomId: 'bed', lifeSafety: true });
     expect(w?.source).toContain('common practice, no published source');
   });
 
-  it('are required outside each sleeping area, not only inside the bedrooms', () => {
-    // NFPA 72 Ch. 29: outside each separate sleeping area (21 ft not modelled) — references.md 4.1 (PUBLIC)
+  it('are required outside each sleeping area, in the hall that serves it', () => {
+    // NFPA 72 Ch. 29: outside each separate sleeping area — references.md 4.1 (PUBLIC)
+    // Changed on purpose: the finding used to have no room (roomId null); it now names the hall the
+    // bedroom records as serving its sleeping area, because only that hall can satisfy the rule.
     const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke')]));
-    expect(withCode(r, 'smoke_missing_outside_sleeping_area')).toEqual([expect.objectContaining({ severity: 'error', floorId: 'f1', roomId: null })]);
-    expect(withCode(r, 'smoke_missing_outside_sleeping_area')[0]?.source).toContain('references.md 4.1 (PUBLIC)');
-    // any non-bedroom room on the floor will do, but not a garage
-    expect(codes(computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')])))).toEqual([]);
+    expect(withCode(r, 'smoke_missing_outside_sleeping_area')).toEqual([
+      expect.objectContaining({ severity: 'error', evidence: 'public', floorId: 'f1', roomId: 'land', zoneId: null }),
+    ]);
+    const [f] = withCode(r, 'smoke_missing_outside_sleeping_area');
+    expect(f?.source).toContain('references.md 4.1 (PUBLIC)');
+    expect(f?.message).toContain('The sleeping area of Bedroom has no smoke alarm in service in Landing (Upstairs), the hall that serves it.');
+  });
+
+  it('outside the sleeping area: in the hall serving the bedrooms passes, in the kitchen or a bathroom it does not', () => {
+    // NFPA 72 Ch. 29: outside each separate sleeping area, within 21 ft of the bedroom doors — references.md 4.1 (PUBLIC)
+    // Changed on purpose: an alarm in any other non-bedroom room on the floor used to satisfy this.
+    const others = [room('kit', 'f1', 'Kitchen', 'kitchen'), room('bath', 'f1', 'Bathroom', 'bath')];
+    const inHall = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('x', 'land', 'smoke')], others));
+    const inKitchen = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('x', 'kit', 'smoke')], others));
+    const inBath = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('x', 'bath', 'smoke')], others));
+    expect(inHall.findings).toEqual([]);
+    expect(codes(inKitchen)).toEqual(['smoke_missing_outside_sleeping_area']);
+    expect(withCode(inKitchen, 'smoke_missing_outside_sleeping_area')[0]?.message).toContain('The smoke alarm in Kitchen does not stand in for it');
+    expect(codes(inBath)).toEqual(['smoke_missing_outside_sleeping_area']);
+    expect(withCode(inBath, 'smoke_missing_outside_sleeping_area')[0]?.message).toContain('The smoke alarm in Bathroom does not stand in for it');
+  });
+
+  it('outside the sleeping area: an alarm in the garage never stands in for the hall', () => {
+    // NFPA 72 Ch. 29 outside each sleeping area — references.md 4.1 (PUBLIC); garages are not living spaces — from memory
     const garage = room('gar', 'f1', 'Garage', 'garage', { attachedGarage: true });
-    const withGarage = computeCoverage(
-      oneBedroomFloor([device('s', 'bed', 'smoke'), device('g', 'gar', 'smoke'), device('c', 'land', 'co')], [garage]),
+    const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('g', 'gar', 'smoke'), device('c', 'land', 'co')], [garage]));
+    expect(codes(r).sort()).toEqual(['smoke_in_garage', 'smoke_missing_outside_sleeping_area']);
+  });
+
+  it('outside the sleeping area cannot be judged when the bedroom names no hall, and an alarm nearby is not taken as enough', () => {
+    // NFPA 72 Ch. 29 outside each separate sleeping area — references.md 4.1 (PUBLIC); IRC §R315.3 — references.md 4.16 (PUBLIC)
+    // Changed on purpose: a bedroom that names no hall used to be satisfied by any alarm on its floor.
+    const known = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')]));
+    const unknown = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')], [], { servedByHallId: null }));
+    expect(known.findings).toEqual([]);
+    expect(codes(unknown)).toEqual(['sleeping_area_unknown']);
+    const [f] = withCode(unknown, 'sleeping_area_unknown');
+    expect(f).toMatchObject({ severity: 'warning', evidence: 'public', roomId: 'bed', floorId: 'f1', lifeSafety: true });
+    expect(f?.message).toContain('Record which hall or landing serves Bedroom (Upstairs)');
+    expect(f?.message).toContain('whether a smoke alarm outside its sleeping area');
+    expect(f?.source).toContain('references.md 4.16 (PUBLIC)');
+  });
+
+  it('outside the sleeping area: a bedroom that names a kitchen as its hall is treated as naming none', () => {
+    // IRC §R315.3 "in the immediate vicinity of the bedrooms" — references.md 4.16 (PUBLIC)
+    const kitchen = room('kit', 'f1', 'Kitchen', 'kitchen');
+    const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('k', 'kit', 'smoke')], [kitchen], { servedByHallId: 'kit' }));
+    expect(codes(r)).toEqual(['sleeping_area_unknown']);
+    expect(canServeSleepingArea('kitchen')).toBe(false);
+    expect(canServeSleepingArea('hall')).toBe(true);
+    // every kind that may serve is a kind of room the premises know, and none is a bedroom, bathroom, kitchen, garage, utility or basement room
+    for (const kind of SLEEPING_AREA_HALL_KINDS) expect(ROOM_KINDS).toContain(kind);
+    for (const kind of ['bedroom', 'bath', 'kitchen', 'garage', 'utility', 'basement'] as const) expect(canServeSleepingArea(kind), kind).toBe(false);
+  });
+
+  it('with the hall alarm in place, ask the technician to confirm 21 ft from each bedroom door until it is confirmed', () => {
+    // NFPA 72 Ch. 29: within 21 ft (6.4 m) of any sleeping-room door, along the path of travel — references.md 4.1 (PUBLIC)
+    const confirmed = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')]));
+    const unconfirmed = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')], [], { hallWithin21FtConfirmed: false }));
+    expect(confirmed.findings).toEqual([]);
+    expect(codes(unconfirmed)).toEqual(['sleeping_area_distance_unconfirmed']);
+    const [f] = withCode(unconfirmed, 'sleeping_area_distance_unconfirmed');
+    expect(f).toMatchObject({ severity: 'warning', evidence: 'public', roomId: 'bed', lifeSafety: true });
+    expect(f?.message).toContain('within 21 ft (6.4 m) of the smoke alarm in Landing');
+    // no alarm in the hall: the missing alarm is the finding, not the distance
+    const noHallAlarm = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke')], [], { hallWithin21FtConfirmed: false }));
+    expect(codes(noHallAlarm)).toEqual(['smoke_missing_outside_sleeping_area']);
+  });
+
+  it('judge each separate sleeping area by its own hall', () => {
+    // NFPA 72 Ch. 29: outside each separate sleeping area — references.md 4.1 (PUBLIC)
+    const r = computeCoverage(
+      premises({
+        floors: [floor('up', 'Upstairs', 1), floor('gf', 'Ground floor', 0)],
+        rooms: [
+          bedroom('a', 'up', 'Bedroom A', 'land'),
+          bedroom('b', 'up', 'Bedroom B', 'land'),
+          room('land', 'up', 'Landing', 'hall'),
+          bedroom('c', 'gf', 'Guest room', 'gh'),
+          room('gh', 'gf', 'Back hall', 'hall'),
+          room('liv', 'gf', 'Living room', 'living'),
+        ],
+        zones: [device('sa', 'a', 'smoke'), device('sb', 'b', 'smoke'), device('sc', 'c', 'smoke'), device('sl', 'land', 'smoke'), device('sv', 'liv', 'smoke')],
+      }),
     );
-    expect(codes(withGarage)).toContain('smoke_missing_outside_sleeping_area');
+    expect(codes(r)).toEqual(['smoke_missing_outside_sleeping_area']);
+    const [f] = withCode(r, 'smoke_missing_outside_sleeping_area');
+    expect(f?.roomId).toBe('gh');
+    expect(f?.message).toContain('The sleeping area of Guest room has no smoke alarm in service in Back hall (Ground floor)');
+    expect(f?.message).toContain('The smoke alarm in Living room does not stand in for it');
   });
 
   it('are required on a basement level', () => {
@@ -305,14 +528,15 @@ describe('smoke alarms (NFPA 72 Chapter 29)', () => {
       }),
     );
     const [f] = withCode(r, 'smoke_missing_level');
-    expect(f).toMatchObject({ severity: 'error', floorId: 'bs', roomId: null, lifeSafety: true });
+    expect(f).toMatchObject({ severity: 'error', evidence: 'public', floorId: 'bs', roomId: null, lifeSafety: true });
     expect(f?.message).toContain('Basement');
+    expect(f?.message).toContain('Basements need one too.');
     expect(f?.source).toContain('references.md 4.1 (PUBLIC)');
     expect(codes(r)).toEqual(['smoke_missing_level']);
   });
 
   it('are required on a level whose rooms are not entered yet, but not on a level that is only a garage', () => {
-    // NFPA 72 Ch. 29: every level — references.md 4.1 (PUBLIC); garages are not living levels — common practice, no published source
+    // NFPA 72 Ch. 29: every level — references.md 4.1 (PUBLIC); a garage is not a living level — from memory
     const r = computeCoverage(
       premises({
         floors: [floor('a', 'Attic room', 2), floor('g', 'Garage level', -1)],
@@ -321,31 +545,70 @@ describe('smoke alarms (NFPA 72 Chapter 29)', () => {
     );
     expect(withCode(r, 'smoke_missing_level').map((f) => f.floorId)).toEqual(['a']);
   });
+
+  it('on a level: the only alarm in a garage does not count, the same alarm in a utility room does', () => {
+    // NFPA 72 Ch. 29: every level — references.md 4.1 (PUBLIC); not in a garage (exhaust, dust, temperature) — from memory
+    const level = (kind: 'garage' | 'utility') =>
+      computeCoverage(
+        premises({
+          floors: [floor('gf', 'Ground floor', 0)],
+          rooms: [room('kit', 'gf', 'Kitchen', 'kitchen'), room('x', 'gf', kind === 'garage' ? 'Garage' : 'Utility', kind)],
+          zones: [device('s', 'x', 'smoke', { description: 'Side smoke' })],
+        }),
+      );
+    const garage = level('garage');
+    const utility = level('utility');
+    expect(utility.findings).toEqual([]);
+    expect(codes(garage).sort()).toEqual(['smoke_in_garage', 'smoke_missing_level']);
+    expect(withCode(garage, 'smoke_missing_level')[0]?.message).toContain('The smoke alarm in Garage does not count: it needs one in a living space.');
+    const [note] = withCode(garage, 'smoke_in_garage');
+    expect(note).toMatchObject({ severity: 'info', evidence: 'memory', zoneId: 's', roomId: 'x', lifeSafety: true });
+    expect(note?.source).toContain('from memory');
+    expect(note?.message).toContain('“Side smoke” is in Garage (Ground floor)');
+  });
 });
 
 describe('CO alarms (IRC R315, NFPA 720)', () => {
   it('are not asked for without a fuel-burning appliance or an attached garage', () => {
+    // IRC 2018 §R315.1 trigger: fuel-burning appliance or attached garage — references.md 4.15 (PUBLIC)
     const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')]));
     expect(r.findings).toEqual([]);
   });
 
-  it('are still required outside sleeping areas in a house with an attached garage and no fuel-burning appliance', () => {
-    // IRC R315.1 (2018) trigger: fuel-burning appliance or attached garage — references.md 4.15 (PUBLIC)
-    // IRC R315.3: outside each separate sleeping area — references.md 4.16 (PUBLIC)
-    const garage = room('gar', 'f1', 'Garage', 'garage', { attachedGarage: true });
-    const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')], [garage]));
-    const [f] = withCode(r, 'co_missing_outside_sleeping_area');
-    expect(f).toMatchObject({ severity: 'error', floorId: 'f1', roomId: null, lifeSafety: true });
+  it('are required outside the sleeping area with an attached garage and no fuel-burning appliance, and not without it', () => {
+    // IRC 2018 §R315.1 trigger: fuel-burning appliance or attached garage — references.md 4.15 (PUBLIC)
+    // IRC 2015/2018 §R315.3: outside each separate sleeping area — references.md 4.16 (PUBLIC)
+    const withGarage = (attachedGarage: boolean) =>
+      computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke')], [room('gar', 'f1', 'Garage', 'garage', { attachedGarage })]));
+    const attached = withGarage(true);
+    const detached = withGarage(false);
+    expect(detached.findings).toEqual([]);
+    // NFPA 720 §9.4.1 every occupiable level — references.md 4.17 (from memory): the floor has no CO alarm either
+    expect(codes(attached).sort()).toEqual(['co_missing_level', 'co_missing_outside_sleeping_area']);
+    const [f] = withCode(attached, 'co_missing_outside_sleeping_area');
+    // Changed on purpose: the finding names the hall that serves the sleeping area (was roomId null).
+    expect(f).toMatchObject({ severity: 'error', evidence: 'public', floorId: 'f1', roomId: 'land', lifeSafety: true });
     expect(f?.source).toContain('IRC');
     expect(f?.source).toContain('references.md 4.15 and 4.16 (PUBLIC)');
-    expect(f?.message).toContain('attached garage');
+    expect(f?.message).toContain('This home has an attached garage');
     expect(
-      codes(computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke'), device('c', 'land', 'co')], [garage]))),
+      codes(computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke'), device('c', 'land', 'co')], [room('gar', 'f1', 'Garage', 'garage', { attachedGarage: true })]))),
     ).toEqual([]);
   });
 
-  it('are asked for on every occupiable level, from memory', () => {
-    // NFPA 720 §9.4.1: every occupiable level including basements — references.md 4.17 (MEMORY), from memory
+  it('outside the sleeping area: a CO alarm in the kitchen does not stand in for the one in the hall', () => {
+    // IRC 2015/2018 §R315.3 "in the immediate vicinity of the bedrooms" — references.md 4.16 (PUBLIC)
+    const kitchen = room('kit', 'f1', 'Kitchen', 'kitchen', { fuelBurningAppliance: true });
+    const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke'), device('c', 'kit', 'co')], [kitchen]));
+    expect(codes(r)).toEqual(['co_missing_outside_sleeping_area']);
+    expect(withCode(r, 'co_missing_outside_sleeping_area')[0]?.message).toContain('a fuel-burning appliance (Kitchen)');
+    expect(withCode(r, 'co_missing_outside_sleeping_area')[0]?.message).toContain('The CO alarm in Kitchen does not stand in for it');
+  });
+
+  it('are asked for on every occupiable level, from memory, with the mark kept out of the message', () => {
+    // NFPA 720 §9.4.1: every occupiable level including basements — references.md 4.17 (from memory)
+    // Changed on purpose: the message used to say "(from memory)"; households read messages, so the
+    // mark now lives in `evidence` and `source`, which only staff see.
     const r = computeCoverage(
       premises({
         floors: [floor('gf', 'Ground floor', 0), floor('bs', 'Basement', -1)],
@@ -354,30 +617,48 @@ describe('CO alarms (IRC R315, NFPA 720)', () => {
       }),
     );
     const [f] = withCode(r, 'co_missing_level');
-    expect(f).toMatchObject({ severity: 'warning', floorId: 'bs', lifeSafety: true });
-    expect(f?.message).toContain('(from memory)');
+    expect(f).toMatchObject({ severity: 'warning', evidence: 'memory', floorId: 'bs', lifeSafety: true });
+    expect(f?.message).not.toMatch(/memory/i);
     expect(f?.source).toContain('references.md 4.17 (MEMORY)');
     expect(codes(r)).toEqual(['co_missing_level']);
   });
 
   it('are required inside a bedroom that has a fuel-burning appliance', () => {
-    // IRC R315.3: a CO alarm within a bedroom with a fuel-burning appliance — references.md 4.16 (PUBLIC)
-    const rooms = [room('bed', 'f1', 'Guest room', 'bedroom', { fuelBurningAppliance: true }), room('land', 'f1', 'Landing', 'hall')];
+    // IRC 2015/2018 §R315.3: a CO alarm within a bedroom with a fuel-burning appliance — references.md 4.16 (PUBLIC)
+    const rooms = [bedroom('bed', 'f1', 'Guest room', 'land', { fuelBurningAppliance: true }), room('land', 'f1', 'Landing', 'hall')];
     const zones = [device('s1', 'bed', 'smoke'), device('s2', 'land', 'smoke'), device('c1', 'land', 'co')];
     const r = computeCoverage(premises({ floors: [floor('f1', 'Ground floor', 0)], rooms, zones }));
     const [f] = withCode(r, 'co_missing_in_bedroom_with_appliance');
-    expect(f).toMatchObject({ severity: 'error', floorId: 'f1', roomId: 'bed', lifeSafety: true });
-    expect(f?.message).toContain('Guest room (Ground floor)');
+    expect(f).toMatchObject({ severity: 'error', evidence: 'public', floorId: 'f1', roomId: 'bed', lifeSafety: true });
+    expect(f?.message).toContain('Guest room (Ground floor) has a fuel-burning appliance but no CO alarm in service inside the bedroom.');
     expect(f?.source).toContain('references.md 4.16 (PUBLIC)');
     expect(codes(r)).toEqual(['co_missing_in_bedroom_with_appliance']);
-    // a CO alarm inside the bedroom satisfies it
-    expect(
-      codes(computeCoverage(premises({ floors: [floor('f1', 'Ground floor', 0)], rooms, zones: [...zones, device('c2', 'bed', 'co')] }))),
-    ).toEqual([]);
+    // a CO alarm inside the bedroom satisfies it; so does a combination alarm with both halves enrolled
+    expect(codes(computeCoverage(premises({ floors: [floor('f1', 'Ground floor', 0)], rooms, zones: [...zones, device('c2', 'bed', 'co')] })))).toEqual([]);
+    const combo = [device('s2', 'land', 'smoke'), device('c1', 'land', 'co'), ...combination('g', 'bed', 'SN-300')];
+    expect(codes(computeCoverage(premises({ floors: [floor('f1', 'Ground floor', 0)], rooms, zones: combo })))).toEqual([]);
+  });
+
+  it('inside the bedroom: an appliance in its attached bathroom needs one, the same appliance in an unattached bathroom does not', () => {
+    // IRC 2015/2018 §R315.3: "a fuel-burning appliance … within a bedroom or its attached bathroom" — references.md 4.16 (PUBLIC)
+    const house = (attachedToBedroomId: string | null) =>
+      computeCoverage(
+        oneBedroomFloor(
+          [device('s', 'bed', 'smoke'), device('l', 'land', 'smoke'), device('c', 'land', 'co')],
+          [room('bath', 'f1', 'En suite', 'bath', { fuelBurningAppliance: true, attachedToBedroomId })],
+        ),
+      );
+    const attached = house('bed');
+    const unattached = house(null);
+    expect(unattached.findings).toEqual([]);
+    expect(codes(attached)).toEqual(['co_missing_in_bedroom_with_appliance']);
+    const [f] = withCode(attached, 'co_missing_in_bedroom_with_appliance');
+    expect(f?.roomId).toBe('bed');
+    expect(f?.message).toContain('a fuel-burning appliance in its attached bathroom (En suite)');
   });
 
   it('do not count while bypassed', () => {
-    // IRC R315.3 — references.md 4.16 (PUBLIC); a bypassed alarm protects no one — common practice, no published source
+    // IRC §R315.3 — references.md 4.16 (PUBLIC); a bypassed alarm protects no one — common practice, no published source
     const garage = room('gar', 'f1', 'Garage', 'garage', { attachedGarage: true });
     const r = computeCoverage(
       oneBedroomFloor(
@@ -386,7 +667,15 @@ describe('CO alarms (IRC R315, NFPA 720)', () => {
       ),
     );
     expect(withCode(r, 'co_missing_outside_sleeping_area')[0]?.message).toContain('“Landing CO” is bypassed');
-    expect(codes(r)).toContain('co_bypassed_only');
+    expect(withCode(r, 'co_bypassed_only')).toEqual([expect.objectContaining({ severity: 'warning', evidence: 'practice', roomId: 'land' })]);
+  });
+
+  it('on a CO zone count, on a fire zone do not', () => {
+    // CO alarms on a CO zone: Mullion holds CO to the fire exemptions of CP-01 §4.2.5.1 — references.md 1.14 (from memory for CO)
+    const garage = room('gar', 'f1', 'Garage', 'garage', { attachedGarage: true });
+    const r = computeCoverage(oneBedroomFloor([device('s', 'bed', 'smoke'), device('l', 'land', 'smoke'), device('c', 'land', 'co', { zoneType: 'fire_24h' })], [garage]));
+    expect(codes(r).sort()).toEqual(['co_missing_level', 'co_missing_outside_sleeping_area', 'life_safety_zone_programming']);
+    expect(withCode(r, 'life_safety_zone_programming')[0]?.message).toContain('set its zone type to CO, always armed');
   });
 });
 
@@ -409,7 +698,7 @@ describe('trade-practice findings', () => {
   it('name each unprotected opening reachable from the ground', () => {
     // Every ground-reachable opening has a sensor — common practice, no published source
     const found = withCode(r, 'opening_unprotected_ground');
-    expect(found).toEqual([expect.objectContaining({ severity: 'warning', floorId: 'gf', roomId: 'den', lifeSafety: false })]);
+    expect(found).toEqual([expect.objectContaining({ severity: 'warning', evidence: 'practice', floorId: 'gf', roomId: 'den', lifeSafety: false })]);
     expect(found[0]?.message).toContain('Den window');
     expect(found[0]?.source).toContain('common practice, no published source');
   });
@@ -417,15 +706,50 @@ describe('trade-practice findings', () => {
   it('name each room with openings but no motion or glass-break detector', () => {
     // Interior detection in rooms with openings — common practice, no published source
     const found = withCode(r, 'room_without_interior_detection');
-    expect(found).toEqual([expect.objectContaining({ severity: 'info', roomId: 'den', lifeSafety: false })]);
+    expect(found).toEqual([expect.objectContaining({ severity: 'info', evidence: 'practice', roomId: 'den', lifeSafety: false })]);
     expect(found[0]?.source).toContain('common practice, no published source');
   });
 });
 
 // --- all together -------------------------------------------------------------------------------------
 
+/**
+ * A house (invented) with something wrong of every kind, so every finding code appears once or more:
+ * upstairs, one bedroom with no alarm whose door is not confirmed within 21 ft of the landing alarm,
+ * one bedroom that names no hall, and a guest room with a fireplace served by the ground-floor hall,
+ * whose only alarm is on a chime-only zone; a kitchen with an open window and a bypassed CO alarm; an
+ * attached garage holding a smoke alarm; a basement whose only smoke alarm is bypassed.
+ */
+function everythingWrongHouse(): CoverageInput {
+  return premises({
+    floors: [floor('up', 'Upstairs', 1), floor('gf', 'Ground floor', 0), floor('bs', 'Basement', -1)],
+    rooms: [
+      bedroom('b1', 'up', 'Bedroom 1', 'land', { hallWithin21FtConfirmed: false }),
+      bedroom('b2', 'up', 'Bedroom 2', null),
+      bedroom('b3', 'up', 'Guest room', 'gh', { fuelBurningAppliance: true }),
+      room('land', 'up', 'Landing', 'hall'),
+      room('gh', 'gf', 'Hall', 'hall'),
+      room('kit', 'gf', 'Kitchen', 'kitchen'),
+      room('gar', 'gf', 'Garage', 'garage', { attachedGarage: true }),
+      room('rec', 'bs', 'Rec room', 'basement'),
+    ],
+    openings: [opening('kw', 'kit', 'Kitchen window')],
+    zones: [
+      device('s-land', 'land', 'smoke'),
+      device('s-b2', 'b2', 'smoke'),
+      device('c-b2', 'b2', 'co'),
+      device('s-b3', 'b3', 'smoke'),
+      device('s-gh', 'gh', 'smoke', { number: 3, description: 'Hall smoke', zoneType: 'monitor_only' }),
+      device('s-kit', 'kit', 'smoke'),
+      device('c-kit', 'kit', 'co', { description: 'Kitchen CO', status: 'bypassed' }),
+      device('s-gar', 'gar', 'smoke', { description: 'Garage smoke' }),
+      device('s-rec', 'rec', 'smoke', { description: 'Rec room smoke', status: 'bypassed' }),
+    ],
+  });
+}
+
 describe('the findings as a whole', () => {
-  it('give a compliant two-storey house with a basement no life-safety errors', () => {
+  it('give a compliant two-storey house with a basement no life-safety findings', () => {
     const r = computeCoverage(compliantHouse());
     expect(lifeSafety(r)).toEqual([]);
     expect(r.findings.filter((f) => f.severity === 'error')).toEqual([]);
@@ -457,14 +781,62 @@ describe('the findings as a whole', () => {
     expect(withCode(r, 'smoke_missing_level').map((f) => f.floorId)).toEqual(['bs', 'gf', 'up']);
   });
 
-  it('each name a rule and a source: a references.md row marked PUBLIC or MEMORY, or common practice', () => {
+  it('cover every finding code in a house with everything wrong, each where the house says', () => {
+    const r = computeCoverage(everythingWrongHouse());
+    expect(new Set(codes(r))).toEqual(new Set(COVERAGE_FINDING_CODES));
+    const at = (code: string) => withCode(r, code).map((f) => f.roomId ?? f.floorId);
+    // NFPA 72 Ch. 29 required detection — references.md 4.1 (PUBLIC)
+    expect(at('smoke_missing_sleeping_room')).toEqual(['b1']);
+    expect(at('smoke_missing_outside_sleeping_area')).toEqual(['gh']);
+    expect(at('sleeping_area_distance_unconfirmed')).toEqual(['b1']);
+    expect(at('sleeping_area_unknown')).toEqual(['b2']);
+    // the basement's only alarm is bypassed — references.md 4.1 (PUBLIC)
+    expect(at('smoke_missing_level')).toEqual(['bs']);
+    // garage alarm is a note — from memory
+    expect(at('smoke_in_garage')).toEqual(['gar']);
+    // IRC §R315.3 — references.md 4.16 (PUBLIC): both halls, and the guest room with its fireplace
+    expect(at('co_missing_outside_sleeping_area').sort()).toEqual(['gh', 'land']);
+    expect(at('co_missing_in_bedroom_with_appliance')).toEqual(['b3']);
+    // NFPA 720 every occupiable level — references.md 4.17 (from memory): the kitchen CO is bypassed
+    expect(at('co_missing_level').sort()).toEqual(['bs', 'gf']);
+    expect(withCode(r, 'life_safety_zone_programming').map((f) => f.zoneId)).toEqual(['s-gh']);
+  });
+
+  it('never write "from memory" (or any source mark) in a message: those live in evidence and source, for staff', () => {
+    const r = computeCoverage(everythingWrongHouse());
+    expect(r.findings.length).toBeGreaterThanOrEqual(COVERAGE_FINDING_CODES.length);
+    for (const f of r.findings) {
+      expect(f.message, f.code).not.toMatch(/from memory/i);
+      expect(f.message, f.code).not.toMatch(/MEMORY|PUBLIC|references\.md|no published source/);
+      // each finding carries its rule's evidence and source unchanged
+      const rule = COVERAGE_RULES[f.code as (typeof COVERAGE_FINDING_CODES)[number]];
+      expect(f.evidence, f.code).toBe(rule.evidence);
+      expect(f.source, f.code).toBe(rule.source);
+      expect(f.lifeSafety, f.code).toBe(rule.lifeSafety);
+    }
+    // and a finding from memory is still marked, where staff see it
+    expect(r.findings.filter((f) => f.evidence === 'memory').map((f) => f.code).sort()).toEqual(['co_missing_level', 'co_missing_level', 'smoke_in_garage']);
+  });
+
+  it('each name a rule and a source whose mark agrees with its evidence', () => {
     expect(Object.keys(COVERAGE_RULES).sort()).toEqual([...COVERAGE_FINDING_CODES].sort());
     for (const code of COVERAGE_FINDING_CODES) {
-      const { rule, source, lifeSafety: ls } = COVERAGE_RULES[code];
+      const { rule, source, evidence, lifeSafety: ls } = COVERAGE_RULES[code];
       expect(rule.length, code).toBeGreaterThan(10);
-      expect(/references\.md 4\.\d+.*\((PUBLIC|MEMORY)\)$/.test(source) || source.includes('common practice, no published source'), code).toBe(true);
-      if (source.includes('MEMORY')) expect(rule, code).toContain('from memory');
-      expect(ls, code).toBe(code.startsWith('smoke_') || code.startsWith('co_'));
+      if (evidence === 'public') expect(source, code).toMatch(/references\.md 4\.\d+.*\(PUBLIC\)/);
+      if (evidence === 'memory') expect(source, code).toMatch(/from memory|\(MEMORY\)/);
+      if (evidence === 'practice') expect(source, code).toContain('common practice, no published source');
+      expect(['public', 'memory', 'practice'], code).toContain(evidence);
+      // Changed on purpose: rules from memory used to say "from memory" in the rule text; the mark is now in evidence and source only.
+      expect(rule, code).not.toMatch(/from memory/i);
+      expect(ls, code).toBe(!['opening_unprotected_ground', 'room_without_interior_detection'].includes(code));
+    }
+  });
+
+  it('make published rules errors and the rest warnings or notes', () => {
+    for (const code of COVERAGE_FINDING_CODES) {
+      const { severity, evidence } = COVERAGE_RULES[code];
+      if (severity === 'error') expect(evidence, code).toBe('public');
     }
   });
 });
@@ -489,6 +861,7 @@ describe('the life-safety caution', () => {
       message: 'x',
       floorId: null,
       roomId: null,
+      zoneId: null,
     };
     expect(
       coverageCaution({ openings: { total: 1, protected: 0, unprotectedGroundReachable: 1 }, summary: '', findings: [intrusionOnly], floors: [] }),

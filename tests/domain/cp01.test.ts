@@ -1,4 +1,7 @@
-/** CP-01 audit of a panel's false-alarm-reduction settings, each check beside its references.md row. */
+/**
+ * CP-01 audit of a panel's false-alarm-reduction settings, each check beside its references.md row.
+ * Zones are invented and built from their device type's defaults (zones.ts) unless a test changes them.
+ */
 import { describe, expect, it } from 'vitest';
 import {
   CP01_DEFAULTS,
@@ -9,11 +12,15 @@ import {
   type Cp01Zone,
   type PanelSettings,
 } from '@domain/cp01';
+import type { DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
+import { zoneDefaultsFor } from '@domain/zones';
 
-const burglaryZones: Cp01Zone[] = [
-  { zoneType: 'entry_exit', status: 'active' },
-  { zoneType: 'perimeter', status: 'active' },
-];
+/** A zone as the technician enrols it: the zone type from its device type's defaults (zones.ts), unless given. */
+function deviceZone(deviceType: DeviceType, number: number, description: string, changes: { zoneType?: ZoneType; status?: ZoneStatus } = {}): Cp01Zone {
+  return { deviceType, number, description, zoneType: zoneDefaultsFor(deviceType).zoneType, status: 'active', ...changes };
+}
+
+const burglaryZones: Cp01Zone[] = [deviceZone('door_contact', 1, 'Front door'), deviceZone('window_contact', 2, 'Kitchen window')];
 
 function audit(changes: Partial<PanelSettings>, zones: Cp01Zone[] = burglaryZones): Cp01Finding[] {
   return auditPanelSettings({ ...CP01_DEFAULTS, ...changes }, zones);
@@ -199,23 +206,99 @@ describe('abort window', () => {
     // ANSI/SIA CP-01 §4.2.5.1: fire zones exempt from any abort window — references.md 1.14 (PUBLIC)
     const zones: Cp01Zone[] = [...burglaryZones, { zoneType: 'fire_24h', status: 'active' }, { zoneType: 'fire_24h', status: 'bypassed' }];
     const finding = only(audit({}, zones));
+    // Changed on purpose: the message now says "Check that they report at once" and covers CO as well.
     expect(finding).toEqual({
       code: 'abort_window_on_fire_zones',
       severity: 'warning',
       field: 'abortWindowSec',
       clause: 'CP-01 §4.2.5.1 abort window (fire zones exempt)',
       evidence: 'public',
-      message: 'This panel has 2 fire zones and a 30 s abort window. Check that fire zones report at once: CP-01 exempts them from any abort window.',
+      message: 'This panel has 2 fire zones and a 30 s abort window. Check that they report at once: CP-01 exempts fire from any abort window.',
     });
   });
 
   it('says nothing about fire zones when they are removed or the abort window is 0', () => {
+    // ANSI/SIA CP-01-2010 abort window 0 allowed — references.md 1.13 (PUBLIC)
     expect(codes(audit({}, [{ zoneType: 'fire_24h', status: 'removed' }]))).toEqual([]);
     expect(codes(audit({ abortWindowSec: 0 }, [{ zoneType: 'fire_24h', status: 'active' }]))).toEqual(['abort_window_off']);
   });
 
-  it('counts only fire zones, not CO or burglary zones', () => {
-    expect(audit({}, [{ zoneType: 'co_24h', status: 'active' }])).toEqual([]);
+  it('counts fire devices by device type too, whatever zone type they are on', () => {
+    // ANSI/SIA CP-01 §4.2.5.1: fire exempt from any abort window — references.md 1.14 (PUBLIC)
+    const zones = [...burglaryZones, deviceZone('smoke', 9, 'Hall smoke'), deviceZone('heat', 10, 'Kitchen heat', { zoneType: 'perimeter' })];
+    const finding = audit({}, zones).find((f) => f.code === 'abort_window_on_fire_zones');
+    expect(finding?.message).toContain('This panel has 2 fire zones and a 30 s abort window.');
+    expect(finding?.evidence).toBe('public');
+    // a combination alarm counts once, as fire
+    const combo = audit({}, [deviceZone('smoke_co', 11, 'Landing smoke/CO'), deviceZone('smoke_co', 12, 'Landing smoke/CO', { zoneType: 'co_24h' })]);
+    expect(only(combo).message).toContain('This panel has 2 fire zones and a 30 s abort window.');
+  });
+
+  it('holds CO zones to the same, from memory, and never burglary zones', () => {
+    // CP-01 §4.2.5.1 names fire — references.md 1.14 (PUBLIC); Mullion holds CO to the same rule (from memory)
+    // Changed on purpose: a CO-only panel used to get no finding here.
+    const finding = only(audit({}, [{ zoneType: 'co_24h', status: 'active' }, deviceZone('co', 12, 'Hall CO')]));
+    expect(finding).toMatchObject({ code: 'abort_window_on_fire_zones', severity: 'warning', evidence: 'memory' });
+    expect(finding.message).toBe(
+      'This panel has 2 CO zones and a 30 s abort window. Check that they report at once: CP-01 exempts fire from any abort window. CP-01 names fire zones; Mullion holds CO zones to the same (from memory).',
+    );
+    const both = only(audit({}, [deviceZone('smoke', 9, 'Hall smoke'), deviceZone('co', 12, 'Hall CO')]));
+    expect(both.evidence).toBe('public');
+    expect(both.message).toContain('1 fire zone and 1 CO zone');
+    expect(audit({}, burglaryZones)).toEqual([]);
+  });
+});
+
+describe('life-safety devices on the wrong zone type', () => {
+  it('a smoke alarm on a perimeter zone is an error, on a fire zone it is not', () => {
+    // ANSI/SIA CP-01 §4.2.5.1 fire exempt from the abort window — references.md 1.14 (PUBLIC); §4.3.2 swinger shutdown not on fire — references.md 1.20 (from memory)
+    const onFire = audit({ abortWindowSec: 0 }, [...burglaryZones, deviceZone('smoke', 9, 'Hall smoke')]);
+    const onPerimeter = audit({ abortWindowSec: 0 }, [...burglaryZones, deviceZone('smoke', 9, 'Hall smoke', { zoneType: 'perimeter' })]);
+    expect(codes(onFire)).toEqual(['abort_window_off']);
+    expect(codes(onPerimeter)).toEqual(['abort_window_off', 'life_safety_device_on_wrong_zone']);
+    const finding = onPerimeter.find((f) => f.code === 'life_safety_device_on_wrong_zone')!;
+    expect(finding).toMatchObject({ severity: 'error', evidence: 'public', field: null });
+    expect(finding.clause).toContain('§4.2.5.1');
+    expect(finding.message).toMatch(/^Zone 9 “Hall smoke” is a fire device on a “Perimeter \(instant\)” zone, so /);
+    expect(finding.message).toContain('Set its zone type to Fire, always armed.');
+  });
+
+  it('names the abort window and swinger limit the panel would apply', () => {
+    // ANSI/SIA CP-01 §4.2.5.1 — references.md 1.14 (PUBLIC); swinger limit 1–6 — references.md 1.18 (PUBLIC); fire exempt from swinger shutdown — references.md 1.20 (from memory)
+    const finding = only(audit({ abortWindowSec: 15, swingerLimit: 3 }, [deviceZone('heat', 4, 'Kitchen heat', { zoneType: 'interior_instant' })]).filter((f) => f.code === 'life_safety_device_on_wrong_zone'));
+    expect(finding.message).toContain('the 15 s abort window and swinger shutdown after 3 trips apply to it');
+    expect(finding.message).toContain('(from memory)');
+  });
+
+  it('on a chime-only zone says it never raises an alarm', () => {
+    // A chime-only zone never reports; fire must report at once — CP-01 §4.2.5.1, references.md 1.14 (PUBLIC)
+    const finding = audit({}, [deviceZone('smoke_detector', 5, 'Corridor detector', { zoneType: 'monitor_only' })]).find((f) => f.code === 'life_safety_device_on_wrong_zone');
+    expect(finding?.message).toContain('so it never raises an alarm at all');
+  });
+
+  it('wants a CO zone for a CO alarm, either zone type for a combination alarm, and a fire zone for heat', () => {
+    // CO held to the fire exemptions of CP-01 §4.2.5.1 — references.md 1.14 (from memory for CO)
+    const co = audit({}, [deviceZone('co', 6, 'Hall CO', { zoneType: 'fire_24h' })]).find((f) => f.code === 'life_safety_device_on_wrong_zone');
+    expect(co?.message).toContain('is a CO device on a “Fire, always armed” zone');
+    expect(co?.message).toContain('Set its zone type to CO, always armed.');
+    const combo = audit({}, [deviceZone('smoke_co', 7, 'Landing smoke/CO', { zoneType: 'entry_exit' })]).find((f) => f.code === 'life_safety_device_on_wrong_zone');
+    expect(combo?.message).toContain('Set its zone type to Fire, always armed or CO, always armed.');
+    expect(codes(audit({}, [deviceZone('smoke_co', 7, 'Landing smoke/CO', { zoneType: 'co_24h' })]))).not.toContain('life_safety_device_on_wrong_zone');
+    expect(codes(audit({}, [deviceZone('heat', 8, 'Loft heat', { zoneType: 'co_24h' })]))).toContain('life_safety_device_on_wrong_zone');
+  });
+
+  it('looks at bypassed zones (still programmed) but not removed ones, and not at other devices', () => {
+    const wrong = { zoneType: 'perimeter' as const };
+    expect(codes(audit({}, [deviceZone('smoke', 9, 'Hall smoke', { ...wrong, status: 'bypassed' })]))).toContain('life_safety_device_on_wrong_zone');
+    expect(codes(audit({}, [deviceZone('smoke', 9, 'Hall smoke', { ...wrong, status: 'removed' })]))).toEqual([]);
+    expect(codes(audit({}, [deviceZone('motion', 3, 'Hall motion', wrong), deviceZone('water', 4, 'Basement water', wrong)]))).toEqual([]);
+    // a zone with no device type recorded is judged by its zone type alone
+    expect(codes(audit({}, [{ zoneType: 'perimeter', status: 'active' }]))).toEqual([]);
+  });
+
+  it('names a zone without a number as "A zone"', () => {
+    const finding = audit({}, [{ deviceType: 'smoke', zoneType: 'perimeter', status: 'active' }]).find((f) => f.code === 'life_safety_device_on_wrong_zone');
+    expect(finding?.message).toMatch(/^A zone is a fire device/);
   });
 });
 
@@ -297,7 +380,7 @@ describe('findings as a whole', () => {
     crossZoning: true,
     crossZoneWindowSec: 0,
   };
-  const findings = audit(worst, [{ zoneType: 'fire_24h', status: 'active' }]);
+  const findings = audit(worst, [{ zoneType: 'fire_24h', status: 'active' }, deviceZone('smoke', 9, 'Hall smoke', { zoneType: 'perimeter' })]);
 
   it('lists every problem once, in the order of the settings', () => {
     expect(codes(findings)).toEqual([
@@ -307,6 +390,7 @@ describe('findings as a whole', () => {
       'entry_plus_abort_too_long',
       'abort_window_out_of_range',
       'abort_window_on_fire_zones',
+      'life_safety_device_on_wrong_zone',
       'swinger_limit_out_of_range',
       'cancel_window_too_short',
       'exit_restart_off',
@@ -315,10 +399,15 @@ describe('findings as a whole', () => {
     ]);
   });
 
-  it('says "(from memory)" in every finding from memory and nowhere else', () => {
+  it('says "(from memory)" in every finding from memory, and elsewhere only beside the part that is', () => {
     for (const finding of findings) {
-      expect(finding.message.includes('(from memory)'), finding.code).toBe(finding.evidence === 'memory');
+      if (finding.evidence === 'memory') expect(finding.message, finding.code).toContain('(from memory)');
     }
+    // The wrong-zone finding rests on public text (abort window, references.md 1.14) but also names the
+    // swinger exemption, which is from memory (references.md 1.20): the mark stands beside that part only.
+    const mixed = findings.filter((f) => f.evidence === 'public' && f.message.includes('(from memory)'));
+    expect(mixed.map((f) => f.code)).toEqual(['life_safety_device_on_wrong_zone']);
+    expect(mixed[0]?.message).toMatch(/CP-01 exempts fire from swinger shutdown \(from memory\)\.$/);
   });
 
   it('makes only public-text ranges errors, apart from our own cross-zone check', () => {

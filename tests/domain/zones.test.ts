@@ -1,6 +1,7 @@
 /** Zone rules: defaults by device type, next free number, clashes, serials elsewhere, change log. */
 import { describe, expect, it } from 'vitest';
-import { DEVICE_TYPES, ZONE_TYPES } from '@domain/devices';
+import { DEVICE_TYPES, LIFE_SAFETY_DEVICE_TYPES, LIFE_SAFETY_ZONE_TYPES, ZONE_TYPES } from '@domain/devices';
+import { checkLifeSafetyZone } from '@domain/life-safety-zone';
 import {
   ZONE_CHANGE_FIELDS,
   ZONE_DEFAULTS,
@@ -68,6 +69,9 @@ describe('zone defaults by device type', () => {
   it('makes life-safety and environmental devices always armed, reported, supervised and silent on chime', () => {
     const expected = {
       smoke: 'fire_24h',
+      smoke_detector: 'fire_24h',
+      // a combination alarm's first input; its CO input is enrolled as a second zone on co_24h
+      smoke_co: 'fire_24h',
       heat: 'fire_24h',
       co: 'co_24h',
       water: 'water_24h',
@@ -76,6 +80,23 @@ describe('zone defaults by device type', () => {
     } as const;
     for (const [type, zoneType] of Object.entries(expected) as [keyof typeof expected, string][]) {
       expect(zoneDefaultsFor(type), type).toEqual({ zoneType, reportsToMonitoring: true, chime: false, supervised: true });
+    }
+  });
+
+  it('enrols every life-safety device so that it passes the life-safety zone check', () => {
+    // CP-01 §4.2.5.1 fire exempt from the abort window — references.md 1.14 (PUBLIC): the default is a life-safety zone,
+    // reported and supervised, so a zone made from the defaults counts as protection at once.
+    for (const type of LIFE_SAFETY_DEVICE_TYPES) {
+      const defaults = zoneDefaultsFor(type);
+      expect(LIFE_SAFETY_ZONE_TYPES, type).toContain(defaults.zoneType);
+      const check = checkLifeSafetyZone({ id: type, description: type, deviceType: type, status: 'active', serial: 'S1', ...defaults });
+      // a combination alarm enrolled once still lacks its CO zone; nothing else may be wrong
+      expect(check.problems.map((p) => p.code), type).toEqual(type === 'smoke_co' ? ['combination_half_missing'] : []);
+      expect(check.protects.length, type).toBeGreaterThan(0);
+    }
+    // and no other device type defaults to a life-safety zone
+    for (const type of DEVICE_TYPES.filter((t) => !LIFE_SAFETY_DEVICE_TYPES.includes(t))) {
+      expect(LIFE_SAFETY_ZONE_TYPES, type).not.toContain(zoneDefaultsFor(type).zoneType);
     }
   });
 

@@ -100,10 +100,14 @@ describe('GET /api/sites/:siteId/coverage', () => {
         code: expect.any(String),
         severity: expect.stringMatching(/^(error|warning|info)$/),
         rule: expect.any(String),
+        // staff see where each rule comes from and how it is known (public text, memory, trade practice)
         source: expect.any(String),
+        evidence: expect.stringMatching(/^(public|memory|practice)$/),
         message: expect.any(String),
         floorId: finding.floorId === null ? null : expect.any(String),
         roomId: finding.roomId === null ? null : expect.any(String),
+        // the zone a finding is about (the life-safety zone check, a smoke alarm in a garage), else null
+        zoneId: finding.zoneId === null ? null : expect.any(String),
         lifeSafety: expect.any(Boolean),
       });
     }
@@ -113,6 +117,8 @@ describe('GET /api/sites/:siteId/coverage', () => {
     expect(rooms.map((r) => r.name).sort()).toEqual(['Bedroom', 'Hall', 'Living room']);
     const hall = rooms.find((r) => r.id === house.hall.id)!;
     expect(hall.openings).toEqual([{ id: house.frontDoor.id, kind: 'door', label: 'Front door', groundReachable: true, protected: true, zoneDescription: 'Front door' }]);
+    // each room device says whether it counts: the hall smoke alarm is on a fire zone, reported and supervised
+    expect((hall as unknown as { devices: unknown[] }).devices).toEqual([{ zoneId: expect.any(String), description: 'Hall smoke', deviceType: 'smoke', counts: true }]);
   });
 
   it('counts an opening protected only by a bypassed zone as unprotected', async () => {
@@ -135,8 +141,27 @@ describe('GET /api/sites/:siteId/coverage', () => {
       lifeSafety: true,
     });
     expect(data.caution).toBe(LIFE_SAFETY_CAUTION);
-    // the hall's smoke alarm counts outside the sleeping area and on the level
-    expect((data.findings as Finding[]).map((f) => f.code)).not.toContain('smoke_missing_level');
+    // the hall's smoke alarm counts on the level
+    const codes = (data.findings as Finding[]).map((f) => f.code);
+    expect(codes).not.toContain('smoke_missing_level');
+    // The bedroom names no hall serving it, so "outside the sleeping area" cannot be judged: the
+    // hall's alarm is no longer taken as serving it (it used to be, by being on the same floor).
+    expect(data.findings).toContainEqual(expect.objectContaining({ code: 'sleeping_area_unknown', roomId: house.bedroom.id, severity: 'warning', lifeSafety: true }));
+    expect(codes).not.toContain('smoke_missing_outside_sleeping_area');
+  });
+
+  it('takes the hall the bedroom names as its sleeping area: the hall alarm counts, the 21 ft distance is to be confirmed', async () => {
+    const house = await buildHouse();
+    const url = `/api/sites/${house.site.id}/coverage`;
+    await as.technician.patch(`/api/rooms/${house.bedroom.id}`, { servedByHallId: house.hall.id }).expect(200);
+    const linked = (await as.technician.get(url)).body.data;
+    const codes = (linked.findings as Finding[]).map((f) => f.code);
+    expect(codes).not.toContain('sleeping_area_unknown');
+    expect(codes).not.toContain('smoke_missing_outside_sleeping_area');
+    expect(linked.findings).toContainEqual(expect.objectContaining({ code: 'sleeping_area_distance_unconfirmed', roomId: house.bedroom.id, severity: 'warning' }));
+    await as.technician.patch(`/api/rooms/${house.bedroom.id}`, { hallWithin21FtConfirmed: true }).expect(200);
+    const confirmed = (await as.technician.get(url)).body.data;
+    expect((confirmed.findings as Finding[]).map((f) => f.code)).not.toContain('sleeping_area_distance_unconfirmed');
   });
 
   it('changes the counts after a zone is linked to an opening (and again when it is bypassed)', async () => {

@@ -64,12 +64,27 @@ describe('POST /api/sites/:siteId/panels', () => {
       wirelessZoneTo: 64,
       commPath: 'cellular',
       installedOn: '2025-03-14',
+      // power fields default to a household panel with nothing recorded yet
+      occupancy: 'household',
+      standbyCurrentMa: null,
+      alarmCurrentMa: null,
+      batteryAh: null,
+      batteryManufacturedOn: null,
+      pathFailureReportMin: null,
+      // no fire or CO zones yet: sized as an intrusion panel (UL 1023: 4 h standby, 4 min alarm);
+      // nothing can be worked out until the currents are recorded
+      standby: { duty: 'intrusion', standbyHours: 4, alarmMinutes: 4, neededAh: null, requiredAh: null, batteryDueOn: null },
       settings: { ...CP01_DEFAULTS },
       programmedAt: null,
       changedSinceProgrammed: false,
       nextZoneNumber: 9,
       zoneCount: 0,
-      audit: [],
+      // CP-01 defaults pass; the audit now also holds the power findings: with nothing recorded on an
+      // intrusion-only panel, two notes (info, not life safety) asking for the currents and the battery date
+      audit: [
+        expect.objectContaining({ topic: 'power', code: 'standby_battery_unknown', severity: 'info', field: 'standbyCurrentMa', lifeSafety: false }),
+        expect.objectContaining({ topic: 'power', code: 'standby_battery_age_unknown', severity: 'info', field: 'batteryManufacturedOn', lifeSafety: false }),
+      ],
       createdAt: expect.any(String),
       updatedAt: expect.any(String),
     });
@@ -84,7 +99,11 @@ describe('POST /api/sites/:siteId/panels', () => {
     const res = await as.technician.post(`/api/sites/${a.site.id}/panels`, newPanel({ settings: { ...CP01_DEFAULTS, exitDelaySec: 30 } }));
     expect(res.status).toBe(201);
     expect(res.body.data.settings.exitDelaySec).toBe(30);
-    expect(res.body.data.audit).toEqual([expect.objectContaining({ code: 'exit_delay_too_short', severity: 'error', field: 'exitDelaySec' })]);
+    // the audit also carries the power findings (topic 'power'); the CP-01 part is this one finding
+    const cp01 = (res.body.data.audit as { topic: string }[]).filter((f) => f.topic === 'cp01');
+    expect(cp01).toEqual([expect.objectContaining({ code: 'exit_delay_too_short', severity: 'error', field: 'exitDelaySec', topic: 'cp01' })]);
+    // most severe first: the CP-01 error comes before the power notes
+    expect(res.body.data.audit[0]).toMatchObject({ code: 'exit_delay_too_short' });
   });
 
   it('lets coordinators and technicians add panels too', async () => {
@@ -184,7 +203,9 @@ describe('GET|PATCH|DELETE /api/panels/:panelId', () => {
     expect(res.body.data.label).toBe('Basement panel');
     expect(res.body.data.settings).toEqual({ ...CP01_DEFAULTS, exitDelaySec: 90, autoStay: false });
     expect(res.body.data.changedSinceProgrammed).toBe(true);
-    expect(res.body.data.audit).toEqual([expect.objectContaining({ code: 'auto_stay_off', severity: 'warning', evidence: 'memory' })]);
+    // the CP-01 part of the audit (the power findings are topic 'power')
+    const cp01 = (res.body.data.audit as { topic: string }[]).filter((f) => f.topic === 'cp01');
+    expect(cp01).toEqual([expect.objectContaining({ code: 'auto_stay_off', severity: 'warning', evidence: 'memory', topic: 'cp01' })]);
     const log = await ZoneChange.findAll({ where: { tenantId: a.firm.id, panelId: panel.id } });
     expect(log).toHaveLength(1);
     expect(log[0]!.changes).toEqual({ 'settings.exitDelaySec': [60, 90], 'settings.autoStay': [true, false] });

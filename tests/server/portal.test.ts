@@ -4,7 +4,20 @@ import { Document } from '@server/models/Document';
 import { Job } from '@server/models/Job';
 import type { User } from '@server/models/User';
 import { createTestApp, visitor, type TestApp, type Visitor } from '../support/test-app';
-import { buildClient, buildClientUser, buildFirmWithSite, buildJob, buildPanel, buildSite, buildUser, buildZone, buildContact, TEST_PASSWORD } from '../support/factories';
+import {
+  buildClient,
+  buildClientUser,
+  buildFirmWithSite,
+  buildFloor,
+  buildJob,
+  buildPanel,
+  buildRoom,
+  buildSite,
+  buildUser,
+  buildZone,
+  buildContact,
+  TEST_PASSWORD,
+} from '../support/factories';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -201,10 +214,15 @@ describe('portal: devices, service and service requests', () => {
     expect(res.status).toBe(200);
     expect((res.body.data as { description: string }[]).map((d) => d.description).sort()).toEqual(['Front door', 'Hall smoke']);
     for (const d of res.body.data as Record<string, unknown>[]) {
-      expect(Object.keys(d).sort()).toEqual(['chime', 'description', 'id', 'kind', 'life', 'whenArmed']);
+      // lifeSafety marks smoke/heat/CO devices, protects says whether one is programmed to protect
+      expect(Object.keys(d).sort()).toEqual(['chime', 'description', 'id', 'kind', 'life', 'lifeSafety', 'protects', 'whenArmed']);
       expect(typeof d.whenArmed).toBe('string');
-      expect(Object.keys(d.life as object).sort()).toEqual(['batteryDueOn', 'endOfLifeOn', 'state']);
+      // endOfLifeBasis says where the end-of-life date comes from (label, installation, unknown)
+      expect(Object.keys(d.life as object).sort()).toEqual(['batteryDueOn', 'endOfLifeBasis', 'endOfLifeOn', 'state']);
     }
+    const byName = new Map((res.body.data as { description: string }[]).map((d) => [d.description, d]));
+    expect(byName.get('Hall smoke')).toMatchObject({ lifeSafety: true, protects: true, life: { endOfLifeBasis: 'manufactured', state: 'due' } });
+    expect(byName.get('Front door')).toMatchObject({ lifeSafety: false, protects: true, life: { endOfLifeBasis: null } });
   });
 
   it('service shows upcoming and past visits, shared files only, never internal notes', async () => {
@@ -251,5 +269,151 @@ describe('portal: devices, service and service requests', () => {
     // another client's site → 404
     const other = await portalFixture();
     expect((await v.post(`/api/portal/sites/${other.site.id}/service-requests`, { description: 'x', preferredTimes: 'y' })).status).toBe(404);
+  });
+});
+
+// ---------------------------------------------------------------------------------------------
+// Life safety in the portal
+// ---------------------------------------------------------------------------------------------
+
+type PortalDevice = { id: string; description: string; kind: string; whenArmed: string; lifeSafety: boolean; protects: boolean; life: { state: string; endOfLifeBasis: string | null; endOfLifeOn: string | null } };
+
+/**
+ * A household whose coverage raises the findings Mullion knows only from memory: a kitchen with a
+ * fuel-burning appliance and no CO alarm anywhere (co_missing_level, NFPA 720 from memory) and a
+ * smoke alarm in the attached garage (smoke_in_garage, from memory); with a shared document, a
+ * past and an upcoming visit and a contact, so every portal route has something to say.
+ */
+async function memoryFindingsFixture() {
+  const f = await buildFirmWithSite();
+  const floor = await buildFloor(f.site, { name: 'Ground floor', level: 0 });
+  const hall = await buildRoom(floor, { name: 'Hall', kind: 'hall' });
+  const bedroom = await buildRoom(floor, { name: 'Bedroom', kind: 'bedroom', servedByHallId: hall.id });
+  const kitchen = await buildRoom(floor, { name: 'Kitchen', kind: 'kitchen', fuelBurningAppliance: true });
+  const garage = await buildRoom(floor, { name: 'Garage', kind: 'garage', attachedGarage: true });
+  const panel = await buildPanel(f.site);
+  await buildZone(panel, { number: 9, description: 'Bedroom smoke', deviceType: 'smoke', roomId: bedroom.id, manufacturedOn: '2024-01-10' });
+  await buildZone(panel, { number: 10, description: 'Garage smoke', deviceType: 'smoke', roomId: garage.id, manufacturedOn: '2024-01-10' });
+  await buildZone(panel, { number: 11, description: 'Kitchen window', deviceType: 'window_contact', roomId: kitchen.id });
+  const done = await buildJob(f.site, { kind: 'inspection', state: 'completed', completedAt: new Date(Date.now() - 5 * 24 * 60 * 60 * 1000), clientNotes: 'Tested every alarm.' });
+  await buildJob(f.site, { state: 'scheduled', technicianId: f.technician.id, scheduledStart: new Date(Date.now() + 3 * 24 * 60 * 60 * 1000) });
+  await Document.create({
+    tenantId: f.firm.id, siteId: f.site.id, kind: 'photo', title: 'Garage alarm photo', fileId: 'memory-fixture-file', contentType: 'image/jpeg',
+    sizeBytes: 10, sharedWithClient: true, uploadedById: null, jobId: done.id,
+  });
+  await buildContact(f.site, 1, { name: 'Ora Neighbour' });
+  return f;
+}
+
+describe('portal: life safety', () => {
+  it('never shows the household a source known from memory or a references.md row, on any route', async () => {
+    const f = await memoryFindingsFixture();
+    // the staff coverage of this site does carry them: the fixture raises the memory-sourced findings
+    const staff = await signedIn(f.owner);
+    const staffCoverage = await staff.get(`/api/sites/${f.site.id}/coverage`);
+    const staffCodes = (staffCoverage.body.data.findings as { code: string }[]).map((x) => x.code);
+    expect(staffCodes).toEqual(expect.arrayContaining(['co_missing_level', 'smoke_in_garage']));
+    expect(JSON.stringify(staffCoverage.body).toLowerCase()).toContain('memory');
+    expect(JSON.stringify(staffCoverage.body)).toContain('references.md');
+
+    const v = await signedIn(f.clientUser);
+    const routes = ['/api/portal/sites', ...['', '/coverage', '/devices', '/service', '/documents', '/contacts'].map((r) => `/api/portal/sites/${f.site.id}${r}`)];
+    for (const route of routes) {
+      const res = await v.get(route);
+      expect(res.status, route).toBe(200);
+      const text = JSON.stringify(res.body);
+      expect(text.toLowerCase(), route).not.toContain('memory');
+      expect(text, route).not.toContain('references.md');
+    }
+    // the household still sees the findings themselves, in plain words, without source or evidence
+    const coverage = (await v.get(`/api/portal/sites/${f.site.id}/coverage`)).body.data;
+    const garage = (coverage.findings as Record<string, unknown>[]).find((x) => x.code === 'smoke_in_garage')!;
+    expect(garage).toBeDefined();
+    expect(garage).not.toHaveProperty('source');
+    expect(garage).not.toHaveProperty('evidence');
+    expect((coverage.findings as { code: string }[]).map((x) => x.code)).toContain('co_missing_level');
+    const overview = (await v.get(`/api/portal/sites/${f.site.id}`)).body.data;
+    expect((overview.lifeSafety.findings as { code: string }[]).map((x) => x.code)).toEqual(expect.arrayContaining(['co_missing_level', 'smoke_in_garage']));
+  });
+
+  it('a smoke alarm on a monitor-only zone is shown as not protecting, and says it is not set up to raise the alarm', async () => {
+    const f = await buildFirmWithSite();
+    const panel = await buildPanel(f.site);
+    await buildZone(panel, { number: 9, description: 'Landing smoke', deviceType: 'smoke', zoneType: 'monitor_only', manufacturedOn: '2024-01-10' });
+    await buildZone(panel, { number: 10, description: 'Hall smoke', deviceType: 'smoke', manufacturedOn: '2024-01-10' });
+    const v = await signedIn(f.clientUser);
+    const devices = (await v.get(`/api/portal/sites/${f.site.id}/devices`)).body.data as PortalDevice[];
+    const chime = devices.find((d) => d.description === 'Landing smoke')!;
+    expect(chime).toMatchObject({ lifeSafety: true, protects: false });
+    expect(chime.whenArmed).toContain('not set up to raise the alarm');
+    // the same device on a fire zone, reported: it protects and calls the monitoring center
+    const fire = devices.find((d) => d.description === 'Hall smoke')!;
+    expect(fire).toMatchObject({ lifeSafety: true, protects: true });
+    expect(fire.whenArmed).toContain('fire alarm');
+    expect(fire.whenArmed).toContain('monitoring center is called');
+    expect(fire.whenArmed).not.toContain('not set up');
+  });
+
+  it('describes a siren, a keypad and a keyfob as equipment, never as something that “never” sounds the alarm', async () => {
+    const f = await buildFirmWithSite();
+    const panel = await buildPanel(f.site);
+    await buildZone(panel, { number: 9, description: 'Hall siren', deviceType: 'siren' });
+    await buildZone(panel, { number: 10, description: 'Front keypad', deviceType: 'keypad' });
+    await buildZone(panel, { number: 11, description: 'Keyfob 1', deviceType: 'keyfob' });
+    // enrolled on another zone type, with reporting on: still described as what it is
+    await buildZone(panel, { number: 12, description: 'Back keypad', deviceType: 'keypad', zoneType: 'perimeter', reportsToMonitoring: true });
+    const v = await signedIn(f.clientUser);
+    const devices = (await v.get(`/api/portal/sites/${f.site.id}/devices`)).body.data as PortalDevice[];
+    expect(devices).toHaveLength(4);
+    for (const d of devices) {
+      expect(d.whenArmed.toLowerCase(), d.description).not.toContain('never');
+      expect(d, d.description).toMatchObject({ lifeSafety: false, protects: true });
+    }
+    const words = new Map(devices.map((d) => [d.description, d.whenArmed]));
+    expect(words.get('Hall siren')).toContain('sounds when the alarm goes off');
+    expect(words.get('Keyfob 1')).toContain('remote control');
+    expect(words.get('Front keypad')).toContain('set and unset the alarm');
+    expect(words.get('Back keypad')).toBe(words.get('Front keypad'));
+  });
+
+  it('judges a smoke alarm without a label date by its installation: due when even that has passed, else check (never ok); check devices are due soon', async () => {
+    const saved = t.clock.now;
+    try {
+      t.clock.now = new Date('2026-06-15T17:00:00Z');
+      const f = await buildFirmWithSite();
+      const panel = await buildPanel(f.site);
+      // installed 2014: made on or before then, so past 10 years by 2024 at the latest
+      await buildZone(panel, { number: 9, description: 'Old smoke', deviceType: 'smoke', installedOn: '2014-05-01' });
+      // installed 2024: its end of life cannot be known without the label date
+      await buildZone(panel, { number: 10, description: 'Newer smoke', deviceType: 'smoke', installedOn: '2024-05-01' });
+      // no dates at all
+      await buildZone(panel, { number: 11, description: 'Unknown smoke', deviceType: 'smoke' });
+      // with the label date and years to go: ok
+      await buildZone(panel, { number: 12, description: 'Dated smoke', deviceType: 'smoke', manufacturedOn: '2024-01-10', installedOn: '2024-05-01' });
+      const v = await signedIn(f.clientUser);
+      const devices = (await v.get(`/api/portal/sites/${f.site.id}/devices`)).body.data as PortalDevice[];
+      const byName = new Map(devices.map((d) => [d.description, d]));
+      expect(byName.get('Old smoke')!.life).toMatchObject({ state: 'due', endOfLifeBasis: 'installed', endOfLifeOn: '2024-05-01' });
+      expect(byName.get('Newer smoke')!.life).toMatchObject({ state: 'check', endOfLifeBasis: 'installed', endOfLifeOn: '2034-05-01' });
+      expect(byName.get('Unknown smoke')!.life).toMatchObject({ state: 'check', endOfLifeBasis: 'unknown', endOfLifeOn: null });
+      expect(byName.get('Dated smoke')!.life).toMatchObject({ state: 'ok', endOfLifeBasis: 'manufactured', endOfLifeOn: '2034-01-10' });
+
+      const overview = (await v.get(`/api/portal/sites/${f.site.id}`)).body.data;
+      const dueSoon = (overview.devicesDueSoon as PortalDevice[]).map((d) => `${d.description} ${d.life.state}`).sort();
+      expect(dueSoon).toEqual(['Newer smoke check', 'Old smoke due', 'Unknown smoke check']);
+    } finally {
+      t.clock.now = saved;
+    }
+  });
+
+  it('a bypassed smoke alarm is not presented as protecting or as calling for help', async () => {
+    const f = await buildFirmWithSite();
+    const panel = await buildPanel(f.site);
+    await buildZone(panel, { number: 9, description: 'Hall smoke', deviceType: 'smoke', status: 'bypassed', manufacturedOn: '2024-01-10' });
+    const v = await signedIn(f.clientUser);
+    const [device] = (await v.get(`/api/portal/sites/${f.site.id}/devices`)).body.data as PortalDevice[];
+    // coverage says a bypassed alarm protects no one (smoke_bypassed_only); the device list must agree
+    expect(device).toMatchObject({ description: 'Hall smoke', lifeSafety: true, protects: false });
+    expect(device!.whenArmed).not.toContain('monitoring center is called');
   });
 });

@@ -260,6 +260,10 @@ describe('POST /api/floors/:floorId/rooms', () => {
       kind: 'bedroom',
       fuelBurningAppliance: true,
       attachedGarage: false,
+      // the room links (life-safety rules): none given, so none recorded
+      servedByHallId: null,
+      hallWithin21FtConfirmed: false,
+      attachedToBedroomId: null,
       createdAt: expect.any(String),
       updatedAt: expect.any(String),
     });

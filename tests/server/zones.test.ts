@@ -79,7 +79,10 @@ describe('POST /api/panels/:panelId/zones', () => {
       batteryChangedOn: null,
       manufacturedOn: null,
       pin: null,
-      life: { batteryDueOn: null, endOfLifeOn: null, state: 'ok' },
+      // a window contact has no end of life (basis null) and no battery type recorded, so no forecast
+      life: { batteryDueOn: null, endOfLifeOn: null, endOfLifeBasis: null, state: 'ok', batteryYears: null, batteryUnderOneYear: false },
+      // not a smoke, heat or CO device: nothing for the life-safety zone check to say
+      lifeSafetyProblems: [],
       elsewhere: [],
       warnings: [],
       createdAt: expect.any(String),
@@ -246,13 +249,22 @@ describe('GET /api/panels/:panelId/zones', () => {
       await buildZone(panel, { number: 11, description: 'Bedroom smoke', deviceType: 'smoke', manufacturedOn: '2016-08-01' });
       const res = await as.owner.get(`/api/panels/${panel.id}/zones`);
       const [smoke, window, newer] = res.body.data;
-      // NFPA 72: 10 years from manufacture (references.md 4.4)
-      expect(smoke.life).toEqual({ batteryDueOn: null, endOfLifeOn: '2025-06-01', state: 'due' });
-      // CR2032 (225 mAh) at 5 µA: 45,000 h ≈ 5.13 years → 5 years and 49 days
-      expect(window.life).toEqual({ batteryDueOn: addYearsToDate('2026-06-15', batteryLifeYears(225, 5)), endOfLifeOn: null, state: 'ok' });
-      expect(window.life.batteryDueOn).toBe('2031-08-03');
+      // NFPA 72: 10 years from manufacture (references.md 4.4); the label date is known, so the basis is 'manufactured'
+      expect(smoke.life).toEqual({ batteryDueOn: null, endOfLifeOn: '2025-06-01', endOfLifeBasis: 'manufactured', state: 'due', batteryYears: null, batteryUnderOneYear: false });
+      // CR2032 (225 mAh nominal) × 0.8 usable (the default usableCapacityFraction) = 180 mAh at 5 µA:
+      // 36,000 h ≈ 4.11 years → 4 years and 39 days (it was 5 years and 49 days on the full 225 mAh)
+      expect(window.life).toEqual({
+        batteryDueOn: addYearsToDate('2026-06-15', batteryLifeYears(225 * 0.8, 5)),
+        endOfLifeOn: null,
+        endOfLifeBasis: null,
+        state: 'ok',
+        batteryYears: batteryLifeYears(225 * 0.8, 5),
+        batteryUnderOneYear: false,
+      });
+      expect(window.life.batteryDueOn).toBe('2030-07-24');
+      expect(window.life.batteryYears).toBeCloseTo(4.107, 3);
       // within the 90 days before end of life: soon
-      expect(newer.life).toEqual({ batteryDueOn: null, endOfLifeOn: '2026-08-01', state: 'soon' });
+      expect(newer.life).toEqual({ batteryDueOn: null, endOfLifeOn: '2026-08-01', endOfLifeBasis: 'manufactured', state: 'soon', batteryYears: null, batteryUnderOneYear: false });
     } finally {
       t.clock.now = saved;
     }
@@ -270,7 +282,7 @@ describe('GET /api/panels/:panelId/zones', () => {
       // 03:00 UTC on 1 March is still 28 February in Chicago: end of life is tomorrow there
       t.clock.now = new Date('2026-03-01T03:00:00Z');
       const early = await owner.get(`/api/panels/${panel.id}/zones`);
-      expect(early.body.data[0].life).toEqual({ batteryDueOn: null, endOfLifeOn: '2026-03-01', state: 'soon' });
+      expect(early.body.data[0].life).toEqual({ batteryDueOn: null, endOfLifeOn: '2026-03-01', endOfLifeBasis: 'manufactured', state: 'soon', batteryYears: null, batteryUnderOneYear: false });
       // CO end of life is the firm's setting: 7 years by default, 5 when the firm says so
       expect(early.body.data[1].life).toMatchObject({ endOfLifeOn: '2027-01-15', state: 'ok' });
       t.clock.now = new Date('2026-03-01T07:00:00Z');

@@ -16,7 +16,8 @@ import { Panel } from '@server/models/Panel';
 import { Zone } from '@server/models/Zone';
 import { CP01_DEFAULTS, type PanelSettings } from '@domain/cp01';
 import { zoneDefaultsFor } from '@domain/zones';
-import type { DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
+import type { CommPath, DeviceType, ZoneStatus, ZoneType } from '@domain/devices';
+import type { PanelOccupancy } from '@domain/panel-power';
 import type { OpeningKind, RoomKind } from '@domain/premises';
 import { Floor } from '@server/models/Floor';
 import { Opening } from '@server/models/Opening';
@@ -156,6 +157,13 @@ export async function buildPanel(
     wirelessZoneTo: number;
     settings: Partial<PanelSettings>;
     changedSinceProgrammed: boolean;
+    commPath: CommPath;
+    occupancy: PanelOccupancy;
+    standbyCurrentMa: number | null;
+    alarmCurrentMa: number | null;
+    batteryAh: number | null;
+    batteryManufacturedOn: string | null;
+    pathFailureReportMin: number | null;
   }> = {},
 ): Promise<Panel> {
   return Panel.create({
@@ -166,10 +174,16 @@ export async function buildPanel(
     zoneCapacity: overrides.zoneCapacity ?? 64,
     wirelessZoneFrom: overrides.wirelessZoneFrom ?? 9,
     wirelessZoneTo: overrides.wirelessZoneTo ?? 64,
-    commPath: 'cellular',
+    commPath: overrides.commPath ?? 'cellular',
     installedOn: '2025-03-14',
     settings: { ...CP01_DEFAULTS, ...(overrides.settings ?? {}) },
     changedSinceProgrammed: overrides.changedSinceProgrammed ?? false,
+    occupancy: overrides.occupancy ?? 'household',
+    standbyCurrentMa: overrides.standbyCurrentMa ?? null,
+    alarmCurrentMa: overrides.alarmCurrentMa ?? null,
+    batteryAh: overrides.batteryAh ?? null,
+    batteryManufacturedOn: overrides.batteryManufacturedOn ?? null,
+    pathFailureReportMin: overrides.pathFailureReportMin ?? null,
   });
 }
 
@@ -188,6 +202,11 @@ export async function buildZone(
     installedOn: string | null;
     batteryChangedOn: string | null;
     manufacturedOn: string | null;
+    reportsToMonitoring: boolean;
+    supervised: boolean;
+    chime: boolean;
+    roomId: string | null;
+    openingId: string | null;
   }> = {},
 ): Promise<Zone> {
   const deviceType = overrides.deviceType ?? 'window_contact';
@@ -202,10 +221,12 @@ export async function buildZone(
     zoneType: overrides.zoneType ?? defaults.zoneType,
     serial: overrides.serial ?? '',
     input: overrides.input ?? 1,
-    reportsToMonitoring: defaults.reportsToMonitoring,
-    chime: defaults.chime,
-    supervised: defaults.supervised,
+    reportsToMonitoring: overrides.reportsToMonitoring ?? defaults.reportsToMonitoring,
+    chime: overrides.chime ?? defaults.chime,
+    supervised: overrides.supervised ?? defaults.supervised,
     status: overrides.status ?? 'active',
+    roomId: overrides.roomId ?? null,
+    openingId: overrides.openingId ?? null,
     installedOn: overrides.installedOn ?? null,
     batteryType: overrides.batteryType ?? null,
     batteryChangedOn: overrides.batteryChangedOn ?? null,
@@ -231,7 +252,18 @@ export async function buildFloor(site: Site, overrides: Partial<{ name: string; 
 /** A room on this floor: a living room unless given. */
 export async function buildRoom(
   floor: Floor,
-  overrides: Partial<{ name: string; kind: RoomKind; fuelBurningAppliance: boolean; attachedGarage: boolean; position: number }> = {},
+  overrides: Partial<{
+    name: string;
+    kind: RoomKind;
+    fuelBurningAppliance: boolean;
+    attachedGarage: boolean;
+    position: number;
+    /** a bedroom: the hall serving its sleeping area (not checked here: the API checks it) */
+    servedByHallId: string | null;
+    hallWithin21FtConfirmed: boolean;
+    /** a bathroom: the bedroom it is attached to (not checked here) */
+    attachedToBedroomId: string | null;
+  }> = {},
 ): Promise<Room> {
   return Room.create({
     tenantId: floor.tenantId,
@@ -241,6 +273,9 @@ export async function buildRoom(
     kind: overrides.kind ?? 'living',
     fuelBurningAppliance: overrides.fuelBurningAppliance ?? false,
     attachedGarage: overrides.attachedGarage ?? false,
+    servedByHallId: overrides.servedByHallId ?? null,
+    hallWithin21FtConfirmed: overrides.hallWithin21FtConfirmed ?? false,
+    attachedToBedroomId: overrides.attachedToBedroomId ?? null,
     position: overrides.position ?? 0,
   });
 }

@@ -2,13 +2,14 @@
  * The invented installed base of a demo firm: a dozen clients, their sites (fictional
  * towns of a fictional county), emergency contacts, one panel per site and a realistic
  * set of zones — some batteries due, some smoke alarms near end of life, and one panel
- * whose settings fall outside CP-01. Deterministic: the same firm gets the same data.
+ * whose settings fall outside CP-01. Each life-safety mistake the rules look for appears
+ * on one site (see LIFE_SAFETY_SCENES). Deterministic: the same firm gets the same data.
  */
 import type { Transaction } from 'sequelize';
 import { CP01_DEFAULTS } from '@domain/cp01';
-import type { DeviceType } from '@domain/devices';
+import { isLifeSafetyDevice, type DeviceType } from '@domain/devices';
 import type { PanelSettings } from '@domain/schemas/panel';
-import { zoneDefaultsFor } from '@domain/zones';
+import { zoneDefaultsFor, type ZoneDefaults } from '@domain/zones';
 import type { SecretBox } from '../../crypto/secret-box';
 import { Client } from '../../models/Client';
 import { EmergencyContact } from '../../models/EmergencyContact';
@@ -17,6 +18,7 @@ import { Site } from '../../models/Site';
 import { Zone } from '../../models/Zone';
 import type { TenantFiles } from '../../storage/tenant-files';
 import { seedJobs } from './demo-jobs';
+import { LIFE_SAFETY_SCENES } from './demo-life-safety-scenes';
 import { seedPremises } from './demo-premises';
 
 const FIRST = ['Maren', 'Joel', 'Ines', 'Tobias', 'Odile', 'Ravi', 'Hedda', 'Callum', 'Petra', 'Amos', 'Liesl', 'Dario', 'Wren', 'Soren', 'Yara', 'Bram'];
@@ -49,6 +51,8 @@ interface ZonePlan {
   description: string;
   deviceType: DeviceType;
   batteryType: string | null;
+  /** Behaviour fields that differ from the device type's defaults (a programming mistake) */
+  behaviour?: Partial<ZoneDefaults>;
 }
 
 const HOME_ZONES: ZonePlan[] = [
@@ -68,6 +72,28 @@ const HOME_ZONES: ZonePlan[] = [
   { description: 'Bedside panic', deviceType: 'panic_button', batteryType: 'CR2032' },
   { description: 'Keyfob 1', deviceType: 'keyfob', batteryType: 'CR2032' },
 ];
+
+
+/** The zones of one site, with the life-safety scene of that site applied. */
+function sceneZones(plan: ZonePlan[], scene: number): ZonePlan[] {
+  const zones = plan.map((z) => ({ ...z }));
+  const byName = (name: string) => zones.find((z) => z.description === name);
+  if (scene === LIFE_SAFETY_SCENES.smokeOnChimeZone) {
+    // enrolled as a chime zone, not reported: the panel never treats it as a fire
+    const smoke = byName('Main bedroom smoke');
+    if (smoke) smoke.behaviour = { zoneType: 'monitor_only', reportsToMonitoring: false };
+  }
+  if (scene === LIFE_SAFETY_SCENES.garageSmoke) zones.push({ description: 'Garage smoke', deviceType: 'smoke', batteryType: 'sealed 10-year' });
+  if (scene === LIFE_SAFETY_SCENES.coinCellSmoke) {
+    const smoke = byName('Main bedroom smoke');
+    if (smoke) smoke.batteryType = 'CR2032';
+  }
+  if (scene === LIFE_SAFETY_SCENES.halfEnrolledCombination) {
+    const smoke = byName('Upstairs hall smoke');
+    if (smoke) Object.assign(smoke, { description: 'Landing smoke and CO', deviceType: 'smoke_co' as const });
+  }
+  return zones;
+}
 
 export interface SeededInstalledBase {
   clients: number;
@@ -165,6 +191,11 @@ export async function seedInstalledBase(
       const installedOn = isoDaysAgo(today, installedDaysAgo);
       const withFinding = options.cp01FindingOnFirstPanel && siteCount === 1;
       const settings: PanelSettings = withFinding ? { ...CP01_DEFAULTS, exitDelaySec: 30, entryDelaySec: 45 } : { ...CP01_DEFAULTS };
+      const scene = siteCount;
+      const pickedPath = rnd.pick(['cellular', 'combination', 'ip'] as const);
+      const commPath =
+        scene === LIFE_SAFETY_SCENES.phoneLineOnly ? 'phone_line' : scene === LIFE_SAFETY_SCENES.slowPathSupervision && pickedPath === 'combination' ? 'cellular' : pickedPath;
+      const powerKnown = scene !== LIFE_SAFETY_SCENES.powerUnknown;
       const panel = await Panel.create(
         {
           tenantId,
@@ -174,7 +205,16 @@ export async function seedInstalledBase(
           zoneCapacity: 64,
           wirelessZoneFrom: 9,
           wirelessZoneTo: 64,
-          commPath: rnd.pick(['cellular', 'combination', 'ip'] as const),
+          commPath,
+          occupancy: 'household',
+          // A typical wireless hub: 120 mA standby, 900 mA with its siren sounding. 120 × 24 h +
+          // 900 × 4 min ÷ 60 needs 2.94 Ah, 3.53 Ah with headroom: a 7 Ah battery passes and the
+          // 2.3 Ah one on the standby-short site does not.
+          standbyCurrentMa: powerKnown ? 120 : null,
+          alarmCurrentMa: powerKnown ? 900 : null,
+          batteryAh: powerKnown ? (scene === LIFE_SAFETY_SCENES.standbyShort ? 2.3 : 7) : null,
+          batteryManufacturedOn: powerKnown ? isoDaysAgo(today, scene === LIFE_SAFETY_SCENES.standbyOld ? 2300 : rnd.int(100, 1200)) : null,
+          pathFailureReportMin: !powerKnown || commPath === 'combination' || commPath === 'phone_line' ? null : scene === LIFE_SAFETY_SCENES.slowPathSupervision ? 60 : 5,
           installedOn,
           settings,
           programmedAt: new Date(today.getTime() - rnd.int(5, 300) * 86_400_000),
@@ -182,14 +222,21 @@ export async function seedInstalledBase(
         },
         { transaction },
       );
-      const plan = HOME_ZONES.filter((_, i) => i < 9 || rnd.next() > 0.25);
+      // The smoke and CO alarms are always there: the life-safety scenes build on them.
+      const plan = sceneZones(
+        HOME_ZONES.filter((z, i) => i < 9 || isLifeSafetyDevice(z.deviceType) || rnd.next() > 0.25),
+        scene,
+      );
       let number = 9;
       const zonesByDescription = new Map<string, Zone>();
       for (const z of plan) {
-        const defaults = zoneDefaultsFor(z.deviceType);
-        const lifeSafety = z.deviceType === 'smoke' || z.deviceType === 'co';
+        const defaults = { ...zoneDefaultsFor(z.deviceType), ...z.behaviour };
+        const lifeSafety = isLifeSafetyDevice(z.deviceType);
         // Some old smoke/CO alarms (end of life due or soon) and some tired coin cells.
-        const manufacturedDaysAgo = lifeSafety ? rnd.int(700, 3900) : null;
+        const labelMissing = lifeSafety && (scene === LIFE_SAFETY_SCENES.labelDateMissing || scene === LIFE_SAFETY_SCENES.labelDateMissingOld);
+        const manufacturedDaysAgo = lifeSafety && !labelMissing ? rnd.int(700, 3900) : null;
+        // an alarm fitted in a house long ago whose label date nobody wrote down
+        const zoneInstalledOn = scene === LIFE_SAFETY_SCENES.labelDateMissingOld && lifeSafety ? isoDaysAgo(today, 4200) : installedOn;
         const batteryChangedDaysAgo = !lifeSafety && rnd.next() > 0.5 ? rnd.int(200, 2000) : null;
         const serialDigits = String(rnd.int(1, 9_999_999)).padStart(7, '0');
         const zone = await Zone.create(
@@ -203,8 +250,8 @@ export async function seedInstalledBase(
             ...defaults,
             serial: serialDigits,
             input: 1,
-            status: rnd.next() > 0.96 ? 'bypassed' : 'active',
-            installedOn,
+            status: rnd.next() > 0.96 && !lifeSafety ? 'bypassed' : 'active',
+            installedOn: zoneInstalledOn,
             batteryType: z.batteryType,
             batteryChangedOn: batteryChangedDaysAgo === null ? null : isoDaysAgo(today, batteryChangedDaysAgo),
             manufacturedOn: manufacturedDaysAgo === null ? null : isoDaysAgo(today, manufacturedDaysAgo),
@@ -214,7 +261,7 @@ export async function seedInstalledBase(
         zonesByDescription.set(z.description, zone);
         zoneCount++;
       }
-      await seedPremises(site, zonesByDescription, { transaction, files: options.files, withPlan: siteCount === 1 });
+      await seedPremises(site, zonesByDescription, { transaction, files: options.files, withPlan: siteCount === 1, scene });
       await seedJobs(site, [...zonesByDescription.values()], {
         transaction,
         files: options.files,

@@ -11,6 +11,7 @@ import { Opening } from '../../models/Opening';
 import { Room } from '../../models/Room';
 import type { Zone } from '../../models/Zone';
 import type { TenantFiles } from '../../storage/tenant-files';
+import { LIFE_SAFETY_SCENES } from './demo-life-safety-scenes';
 import { drawPlan, type PlanMark, type PlanRoom } from './plan-image';
 
 interface RoomPlan {
@@ -18,6 +19,10 @@ interface RoomPlan {
   kind: RoomKind;
   fuelBurningAppliance?: boolean;
   attachedGarage?: boolean;
+  /** a bedroom: the hall serving its sleeping area */
+  servedBy?: string;
+  /** a bathroom: the bedroom it is attached to */
+  attachedTo?: string;
   /** zone descriptions of room devices (motion, smoke, CO, water…) */
   devices?: string[];
   openings?: { kind: OpeningKind; label: string; groundReachable: boolean; zone?: string }[];
@@ -71,6 +76,7 @@ const FLOORS: { name: string; level: number; belowGrade: boolean; rooms: RoomPla
         name: 'Garage',
         kind: 'garage',
         attachedGarage: true,
+        devices: ['Garage smoke'],
         openings: [{ kind: 'garage_door', label: 'Garage door', groundReachable: true, zone: 'Garage door' }],
         box: [20, 320, 160, 160],
       },
@@ -81,10 +87,16 @@ const FLOORS: { name: string; level: number; belowGrade: boolean; rooms: RoomPla
     level: 1,
     belowGrade: false,
     rooms: [
-      { name: 'Landing', kind: 'hall', devices: ['Upstairs hall smoke', 'Hallway CO'] },
-      { name: 'Main bedroom', kind: 'bedroom', devices: ['Main bedroom smoke', 'Bedside panic'], openings: [{ kind: 'window', label: 'Main bedroom window', groundReachable: false }] },
-      { name: 'Guest room', kind: 'bedroom', openings: [{ kind: 'window', label: 'Guest room window', groundReachable: false }] },
-      { name: 'Bathroom', kind: 'bath', openings: [{ kind: 'skylight', label: 'Bathroom skylight', groundReachable: false }] },
+      { name: 'Landing', kind: 'hall', devices: ['Upstairs hall smoke', 'Landing smoke and CO', 'Hallway CO'] },
+      {
+        name: 'Main bedroom',
+        kind: 'bedroom',
+        servedBy: 'Landing',
+        devices: ['Main bedroom smoke', 'Bedside panic'],
+        openings: [{ kind: 'window', label: 'Main bedroom window', groundReachable: false }],
+      },
+      { name: 'Guest room', kind: 'bedroom', servedBy: 'Landing', openings: [{ kind: 'window', label: 'Guest room window', groundReachable: false }] },
+      { name: 'Bathroom', kind: 'bath', attachedTo: 'Main bedroom', openings: [{ kind: 'skylight', label: 'Bathroom skylight', groundReachable: false }] },
     ],
   },
 ];
@@ -125,9 +137,11 @@ const MARKS: PlanMark[] = [
 export async function seedPremises(
   site: { id: string; tenantId: string },
   zonesByDescription: Map<string, Zone>,
-  options: { transaction: Transaction; files: TenantFiles; withPlan: boolean },
+  options: { transaction: Transaction; files: TenantFiles; withPlan: boolean; scene: number },
 ): Promise<void> {
-  const { transaction } = options;
+  const { transaction, scene } = options;
+  const roomsByName = new Map<string, Room>();
+  const links: { room: Room; plan: RoomPlan }[] = [];
   for (const floorPlan of FLOORS) {
     let planImageId: string | null = null;
     if (options.withPlan && floorPlan.level === 0) {
@@ -147,13 +161,19 @@ export async function seedPremises(
           floorId: floor.id,
           name: roomPlan.name,
           kind: roomPlan.kind,
-          fuelBurningAppliance: roomPlan.fuelBurningAppliance ?? false,
+          // a gas water heater in the bathroom off the main bedroom
+          fuelBurningAppliance: (roomPlan.fuelBurningAppliance ?? false) || (scene === LIFE_SAFETY_SCENES.ensuiteAppliance && roomPlan.name === 'Bathroom'),
           attachedGarage: roomPlan.attachedGarage ?? false,
           position: roomPosition++,
         },
         { transaction },
       );
+      roomsByName.set(room.name, room);
+      links.push({ room, plan: roomPlan });
       for (const description of roomPlan.devices ?? []) {
+        // the hall alarm fitted in the bathroom instead of on the landing
+        const misplaced = scene === LIFE_SAFETY_SCENES.hallAlarmInBathroom && description === 'Upstairs hall smoke';
+        if (misplaced) continue;
         const zone = zonesByDescription.get(description);
         if (zone) await zone.update({ roomId: room.id, ...pinFor(description, floor.id, planImageId) }, { transaction });
       }
@@ -167,6 +187,26 @@ export async function seedPremises(
         if (zone) await zone.update({ roomId: room.id, openingId: opening.id, ...pinFor(o.zone!, floor.id, planImageId) }, { transaction });
       }
     }
+  }
+  if (scene === LIFE_SAFETY_SCENES.hallAlarmInBathroom) {
+    const bathroom = roomsByName.get('Bathroom');
+    const zone = zonesByDescription.get('Upstairs hall smoke');
+    if (bathroom && zone) await zone.update({ roomId: bathroom.id }, { transaction });
+  }
+  // Sleeping areas and attached bathrooms, once every room exists. The guest room's 21 ft is not
+  // yet confirmed on the first site; on the sleeping-area-unknown site nobody recorded its hall.
+  for (const { room, plan } of links) {
+    const hall = plan.servedBy && !(scene === LIFE_SAFETY_SCENES.sleepingAreaUnknown && room.name === 'Guest room') ? roomsByName.get(plan.servedBy) : undefined;
+    const bedroom = plan.attachedTo ? roomsByName.get(plan.attachedTo) : undefined;
+    if (!hall && !bedroom) continue;
+    await room.update(
+      {
+        servedByHallId: hall?.id ?? null,
+        hallWithin21FtConfirmed: Boolean(hall) && !(scene === LIFE_SAFETY_SCENES.distanceUnconfirmed && room.name === 'Guest room'),
+        attachedToBedroomId: bedroom?.id ?? null,
+      },
+      { transaction },
+    );
   }
 }
 

@@ -1,18 +1,17 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import { Op, type WhereOptions } from 'sequelize';
-import { auditPanelSettings } from '@domain/cp01';
 import { panelPatchSchema, panelSchema } from '@domain/schemas/panel';
 import { scoped } from '../../context';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
 import { inputOf, validate } from '../../middlewares/validate';
 import { Panel } from '../../models/Panel';
-import { presentPanel, presentZoneChange } from '../../presenters/panel';
+import { panelFindings, presentPanel, presentZoneChange } from '../../presenters/panel';
 import { createPanel, deletePanel, markPanelProgrammed, panelChanges, settingsOf, updatePanel, zonesByPanel } from '../../services/panels';
 import { zoneLocations } from '../../services/premises-links';
 import { buildProgrammingSheet } from '../../services/programming-sheet';
 import { downloadName } from '../../services/zone-export';
-import { panelZones, zoneValuesOf } from '../../services/zones';
+import { panelZones, todayIn, zoneValuesOf } from '../../services/zones';
 import { inTransaction, nowOf, pageOf, requireFirm } from '../helpers';
 import { authorizePanelZones, authorizeSitePanels, loadPanel, loadSite } from './load';
 import { changesQuery, panelListQuery, panelParams, siteParams } from './schema';
@@ -26,6 +25,8 @@ const SORTABLE = { label: 'label', createdAt: 'createdAt', installedOn: 'install
  */
 export function panelsRouter(deps: AppDeps): Router {
   const router = Router();
+  /** Today in the firm's time zone: the standby battery's age is judged on it. */
+  const todayOf = (req: Request) => todayIn(req.ctx.tenant?.timeZone, nowOf(deps));
 
   router.get('/sites/:siteId/panels', requireFirm, validate({ params: siteParams, query: panelListQuery }), async (req, res) => {
     const { params, query } = inputOf(req, { params: siteParams, query: panelListQuery });
@@ -46,7 +47,7 @@ export function panelsRouter(deps: AppDeps): Router {
       req.ctx,
       rows.map((p) => p.id),
     );
-    res.json({ data: rows.map((p) => presentPanel(p, zones.get(p.id) ?? [])), page: pageOf(query.page, query.pageSize, count) });
+    res.json({ data: rows.map((p) => presentPanel(p, zones.get(p.id) ?? [], todayOf(req))), page: pageOf(query.page, query.pageSize, count) });
   });
 
   router.post('/sites/:siteId/panels', requireFirm, validate({ params: siteParams, body: panelSchema }), async (req, res) => {
@@ -54,20 +55,20 @@ export function panelsRouter(deps: AppDeps): Router {
     const site = await loadSite(req, params.siteId);
     authorizeSitePanels(req, site, 'create');
     const panel = await inTransaction(req, deps, (ctx) => createPanel(ctx, site, body));
-    res.status(201).json({ data: presentPanel(panel, []) });
+    res.status(201).json({ data: presentPanel(panel, [], todayOf(req)) });
   });
 
   router.get('/panels/:panelId', requireFirm, validate({ params: panelParams }), async (req, res) => {
     const { params } = inputOf(req, { params: panelParams });
     const panel = await loadPanel(req, params.panelId, 'read');
-    res.json({ data: presentPanel(panel, await panelZones(req.ctx, panel.id)) });
+    res.json({ data: presentPanel(panel, await panelZones(req.ctx, panel.id), todayOf(req)) });
   });
 
   router.patch('/panels/:panelId', requireFirm, validate({ params: panelParams, body: panelPatchSchema }), async (req, res) => {
     const { params, body } = inputOf(req, { params: panelParams, body: panelPatchSchema });
     const loaded = await loadPanel(req, params.panelId, 'update');
     const panel = await inTransaction(req, deps, (ctx) => updatePanel(ctx, loaded.id, body));
-    res.json({ data: presentPanel(panel, await panelZones(req.ctx, panel.id)) });
+    res.json({ data: presentPanel(panel, await panelZones(req.ctx, panel.id), todayOf(req)) });
   });
 
   router.delete('/panels/:panelId', requireFirm, validate({ params: panelParams }), async (req, res) => {
@@ -81,7 +82,7 @@ export function panelsRouter(deps: AppDeps): Router {
     const { params } = inputOf(req, { params: panelParams });
     const loaded = await loadPanel(req, params.panelId, 'update');
     const panel = await inTransaction(req, deps, (ctx) => markPanelProgrammed(ctx, loaded.id, nowOf(deps)));
-    res.json({ data: presentPanel(panel, await panelZones(req.ctx, panel.id)) });
+    res.json({ data: presentPanel(panel, await panelZones(req.ctx, panel.id), todayOf(req)) });
   });
 
   router.get('/panels/:panelId/changes', requireFirm, validate({ params: panelParams, query: changesQuery }), async (req, res) => {
@@ -123,7 +124,7 @@ export function panelsRouter(deps: AppDeps): Router {
         changedSinceProgrammed: Boolean(panel.changedSinceProgrammed),
       },
       settings,
-      findings: auditPanelSettings(settings, zones),
+      findings: panelFindings(panel, zones, todayOf(req)),
       zones: zones.map((zone) => ({ ...zoneValuesOf(zone), location: locations.get(zone.id) ?? null })),
       generatedAt: nowOf(deps),
     });

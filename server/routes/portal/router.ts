@@ -2,6 +2,7 @@ import { Router, type Request, type RequestHandler } from 'express';
 import { Op } from 'sequelize';
 import { z } from 'zod';
 import { deviceLife } from '@domain/device-life';
+import { checkLifeSafetyZone } from '@domain/life-safety-zone';
 import { contactListSchema } from '@domain/schemas/contact';
 import { uuid } from '@domain/schemas/common';
 import { serviceRequestSchema } from '@domain/schemas/portal';
@@ -22,7 +23,7 @@ import { coverageForSite } from '../../services/coverage';
 import { jobViews } from '../../services/jobs';
 import { safeFileName } from '../../services/documents';
 import { changeHouseholdContacts, requestService } from '../../services/portal';
-import { todayIn, upkeepOf, zoneValuesOf } from '../../services/zones';
+import { lifeSafetyInputOf, todayIn, upkeepOf, zoneValuesOf } from '../../services/zones';
 import { inTransaction, nowOf, pageOf } from '../helpers';
 import { sendStoredFile } from '../send-stored-file';
 
@@ -85,9 +86,13 @@ export function portalRouter(deps: AppDeps): Router {
     const zones = await Zone.findAll({ where: scoped(req.ctx, { siteId: site.id }), order: [['description', 'ASC'], ['id', 'ASC']] });
     const today = todayIn(site.timeZone, nowOf(deps));
     const upkeep = upkeepOf(req.ctx.tenant);
+    const siblings = zones.map(lifeSafetyInputOf);
     return zones
       .filter((zone) => zone.status !== 'removed')
-      .map((zone) => presentPortalDevice(zone, deviceLife(zoneValuesOf(zone), upkeep, today)));
+      .map((zone) => {
+        const check = checkLifeSafetyZone(lifeSafetyInputOf(zone), siblings);
+        return presentPortalDevice(zone, deviceLife(zoneValuesOf(zone), upkeep, today), check.problems.every((p) => p.code === 'combination_half_missing'));
+      });
   }
 
   router.get('/portal/sites', async (req, res) => {
@@ -119,7 +124,8 @@ export function portalRouter(deps: AppDeps): Router {
           findings: coverage.findings.filter((f) => f.lifeSafety).map((f) => ({ code: f.code, severity: f.severity, message: f.message })),
           caution: coverage.caution,
         },
-        devicesDueSoon: devices.filter((d) => d.life.state === 'soon' || d.life.state === 'due'),
+        // due, soon, and life-safety devices whose label date must be checked
+        devicesDueSoon: devices.filter((d) => d.life.state === 'soon' || d.life.state === 'due' || d.life.state === 'check'),
         nextVisit: next ? { kind: next.kind, scheduledStart: next.scheduledStart?.toISOString() ?? null } : null,
         firm: firmContactOf(req),
       },

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { COMM_PATHS } from '../devices';
+import { PANEL_OCCUPANCIES } from '../panel-power';
 import { optionalDate, patchOf } from './common';
 
 const seconds = (label: string, max: number) =>
@@ -34,6 +35,28 @@ const panelFields = z.object({
   wirelessZoneTo: zoneNumber('Last wireless zone'),
   commPath: z.enum(COMM_PATHS, { error: 'Choose how the panel reports: cellular, IP, phone line or a combination.' }),
   installedOn: optionalDate.default(null),
+  occupancy: z.enum(PANEL_OCCUPANCIES, { error: 'Choose home or business.' }).default('household'),
+  standbyCurrentMa: z
+    .number({ error: 'Standby current is a number of milliamps.' })
+    .min(0, 'Cannot be negative.')
+    .max(10_000, 'At most 10,000 mA.')
+    .nullable()
+    .default(null),
+  alarmCurrentMa: z
+    .number({ error: 'Alarm current is a number of milliamps.' })
+    .min(0, 'Cannot be negative.')
+    .max(20_000, 'At most 20,000 mA.')
+    .nullable()
+    .default(null),
+  batteryAh: z.number({ error: 'Battery size is a number of amp-hours.' }).positive('Must be above 0 Ah.').max(200, 'At most 200 Ah.').nullable().default(null),
+  batteryManufacturedOn: optionalDate.default(null),
+  pathFailureReportMin: z
+    .number({ error: 'Minutes until a path failure is reported is a number.' })
+    .int('Use whole minutes.')
+    .min(0, 'Cannot be negative.')
+    .max(10_080, 'At most a week (10,080 minutes).')
+    .nullable()
+    .default(null),
 });
 
 function checkRange(p: { zoneCapacity?: number | undefined; wirelessZoneFrom?: number | undefined; wirelessZoneTo?: number | undefined }, ctx: z.RefinementCtx) {

@@ -21,6 +21,11 @@ export const roomSchema = z.object({
   kind: z.enum(ROOM_KINDS, { error: 'Choose what kind of room this is.' }),
   fuelBurningAppliance: z.boolean({ error: 'Fuel-burning appliance is yes or no.' }).default(false),
   attachedGarage: z.boolean({ error: 'Attached garage is yes or no.' }).default(false),
+  /** a bedroom: the hall or landing serving its sleeping area (a room of the same site) */
+  servedByHallId: uuid.nullable().default(null),
+  hallWithin21FtConfirmed: z.boolean({ error: 'Within 21 ft is yes or no.' }).default(false),
+  /** a bathroom: the bedroom it is attached to (a room of the same site) */
+  attachedToBedroomId: uuid.nullable().default(null),
 });
 export const roomPatchSchema = patchOf(roomSchema).extend({
   /** move the room to another floor of the same site */

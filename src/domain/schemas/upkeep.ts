@@ -8,8 +8,16 @@ const years = (label: string) => z.number({ error: `${label} is a number of year
  * counts as "soon", and per-device-type overrides. Saved whole; empty maps mean "our model".
  */
 export const upkeepSettingsSchema = z.object({
-  smokeEndOfLifeYears: years('Smoke alarm life').int('Use whole years.'),
+  // NFPA 72: a household smoke alarm stays in service no more than 10 years from manufacture (references.md 4.4)
+  smokeEndOfLifeYears: years('Smoke alarm life').int('Use whole years.').max(10, 'NFPA 72 allows a smoke alarm at most 10 years from manufacture.'),
+  smokeDetectorEndOfLifeYears: years('System smoke detector life').int('Use whole years.').optional(),
+  heatEndOfLifeYears: years('Heat alarm life').int('Use whole years.').optional(),
   coEndOfLifeYears: years('CO alarm life').int('Use whole years.'),
+  usableCapacityFraction: z
+    .number({ error: 'Usable share of battery capacity is a number between 0.5 and 1.' })
+    .min(0.5, 'At least 0.5 (half the nominal capacity).')
+    .max(1, 'At most 1 (the whole nominal capacity).')
+    .optional(),
   soonDays: z.number({ error: 'Days ahead is a number.' }).int('Use whole days.').min(7, 'At least 7 days.').max(365, 'At most 365 days.'),
   batteryYearsOverride: z.partialRecord(
     z.enum(DEVICE_TYPES),

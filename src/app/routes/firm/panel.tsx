@@ -2,8 +2,8 @@ import { useState } from 'react';
 import { useQuery, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { AlertTriangle, CheckCircle2, ChevronLeft, Download, FileText, Pencil, Plus, Upload } from 'lucide-react';
-import { COMM_PATH_LABELS } from '@domain/devices';
-import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
+import { COMM_PATH_LABELS, isLifeSafetyDevice } from '@domain/devices';
+import { LifeSafetyCaution } from '@/components/coverage/finding-mark';
 import { Button, buttonClass } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PageHeader } from '@/components/ui/page-header';
@@ -17,15 +17,15 @@ import { formatDate } from '@/lib/format';
 import type { ApiPanel, ApiZone } from '@/types/api';
 import { panelQuery, panelUrls, useMarkProgrammed } from '@/features/panels/api/panel-queries';
 import { ChangeLog } from '@/features/panels/components/change-log';
-import { Cp01Findings } from '@/features/panels/components/cp01-findings';
 import { PanelFormDialog } from '@/features/panels/components/panel-form-dialog';
+import { PanelChecks } from '@/features/panels/components/panel-checks';
 import { PanelSettingsForm } from '@/features/panels/components/panel-settings-form';
+import { StandbyBattery } from '@/features/panels/components/standby-battery';
 import { siteQuery } from '@/features/sites/api/sites-queries';
 import { panelZonesQuery } from '@/features/zones/api/zone-queries';
 import { RemoveZoneDialog } from '@/features/zones/components/remove-zone-dialog';
 import { ZoneFormDialog } from '@/features/zones/components/zone-form-dialog';
 import { ZoneImportDialog } from '@/features/zones/components/zone-import-dialog';
-import { isLifeSafetyDevice } from '@/features/zones/components/zone-life-badge';
 import { ZoneList } from '@/features/zones/components/zone-list';
 
 export async function loader(queryClient: QueryClient, { params }: LoaderFunctionArgs) {
@@ -193,20 +193,16 @@ export default function PanelPage() {
           ) : (
             <ZoneList zones={list} canEdit={canEditZones} onEdit={setEditing} onRemove={setRemoving} />
           )}
-          {hasLifeSafety && (
-            <p className="flex items-start gap-2 rounded-md border border-line bg-card px-3 py-2 text-xs text-slate-500">
-              <AlertTriangle className="mt-0.5 size-3.5 shrink-0" aria-hidden="true" />
-              <span>{LIFE_SAFETY_CAUTION}</span>
-            </p>
-          )}
+          {hasLifeSafety && <LifeSafetyCaution />}
         </section>
 
         <div className="grid gap-6 lg:grid-cols-5">
           <div className="lg:col-span-3">
             <PanelSettingsForm key={JSON.stringify(panel.settings)} panel={panel} canEdit={canEditPanel} />
           </div>
-          <div className="order-first lg:order-none lg:col-span-2">
-            <Cp01Findings audit={panel.audit} />
+          <div className="order-first space-y-6 lg:order-none lg:col-span-2">
+            <PanelChecks audit={panel.audit} />
+            <StandbyBattery panel={panel} timeZone={timeZone} />
           </div>
         </div>
 

@@ -4,8 +4,9 @@ import { OPENING_KIND_LABELS } from '@domain/premises';
 import { OpeningSymbol } from '@/components/coverage/opening-symbol';
 import type { PlanPin } from '@/components/coverage/plan-view';
 import { EmptyState } from '@/components/ui/empty-state';
-import { CoverageFloors, CoverageLegend, CoverageSummary, LifeSafetyFindings } from '@/features/coverage/components/coverage-report';
+import { CoverageLegend, CoverageSummary } from '@/features/coverage/components/coverage-report';
 import { portalCoverageQuery } from '@/features/portal/api/portal-queries';
+import { PortalCoverageFloors, PortalLifeSafetyFindings } from '@/features/portal/components/portal-coverage';
 import { PortalCard, PortalTitle } from '@/features/portal/components/portal-parts';
 import type { PortalCoverage } from '@/types/api';
 
@@ -46,7 +47,7 @@ export default function PortalCoveragePage() {
                 <h2 className="text-lg font-semibold">Floor by floor</h2>
                 <CoverageLegend />
               </div>
-              <CoverageFloors coverage={coverage} plans={plans} />
+              <PortalCoverageFloors coverage={coverage} plans={plans} />
             </div>
             <div className="min-w-0 space-y-5 lg:sticky lg:top-28">
               <PortalCard title="No sensor yet" id="no-sensor">
@@ -72,7 +73,7 @@ export default function PortalCoveragePage() {
                 )}
                 {missing.length > 0 && <p className="mt-3 text-sm text-slate-500">Ask your firm about a sensor for any of these when you next book a visit.</p>}
               </PortalCard>
-              <LifeSafetyFindings coverage={coverage} />
+              <PortalLifeSafetyFindings coverage={coverage} />
             </div>
           </div>
         </div>

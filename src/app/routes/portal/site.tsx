@@ -3,14 +3,15 @@ import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { CalendarClock, ChevronRight } from 'lucide-react';
 import { LifeSafetyCaution, TriangleMark } from '@/components/coverage/finding-mark';
 import { OpeningSymbol } from '@/components/coverage/opening-symbol';
-import { Badge } from '@/components/ui/badge';
 import { ButtonLink } from '@/components/ui/button';
+import { SeverityBadge } from '@/components/ui/severity-badge';
 import { paths } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { JOB_KIND_LABELS } from '@domain/jobs';
+import { bySeverity } from '@domain/severity';
 import { portalSummaryQuery } from '@/features/portal/api/portal-queries';
 import { FirmContactCard, PortalCard, PortalTitle } from '@/features/portal/components/portal-parts';
-import { lifeWords } from '@/features/portal/life-words';
+import { DeviceBadges } from '@/features/portal/components/device-badges';
 
 export async function loader(queryClient: QueryClient, { params }: LoaderFunctionArgs) {
   await queryClient.ensureQueryData(portalSummaryQuery(params.siteId ?? ''));
@@ -34,6 +35,7 @@ export default function PortalSitePage() {
   const { siteId = '' } = useParams();
   const { data } = useSuspenseQuery(portalSummaryQuery(siteId));
   const { site, coverage, lifeSafety, devicesDueSoon, nextVisit, firm } = data;
+  const findings = bySeverity(lifeSafety.findings);
   const { total, protected: covered, unprotectedGroundReachable } = coverage.openings;
   const address = [site.address.line1, site.address.city].filter(Boolean).join(', ');
 
@@ -64,21 +66,24 @@ export default function PortalSitePage() {
           </PortalCard>
 
           <PortalCard title="Smoke and carbon monoxide" id="life-safety">
-            {lifeSafety.findings.length === 0 ? (
+            {findings.length === 0 ? (
               <p className="text-sm text-slate-500">Nothing to point out for the rooms and alarms your firm has recorded.</p>
             ) : (
-              <ul className="space-y-2" aria-label="Life-safety findings">
-                {lifeSafety.findings.slice(0, SHOWN).map((f, i) => (
+              <ul className="space-y-2.5" aria-label="Life-safety findings">
+                {findings.slice(0, SHOWN).map((f, i) => (
                   <li key={`${f.code}-${i}`} className="flex items-start gap-2 text-sm">
-                    <TriangleMark tone={f.severity === 'error' ? 'clay' : 'ochre'} className="mt-0.5" />
-                    <span>{f.message}</span>
+                    <span className="flex shrink-0 items-center gap-1.5">
+                      <TriangleMark tone={f.severity === 'error' ? 'clay' : f.severity === 'warning' ? 'ochre' : 'slate'} />
+                      <SeverityBadge severity={f.severity} />
+                    </span>
+                    <span className="min-w-0">{f.message}</span>
                   </li>
                 ))}
               </ul>
             )}
-            {lifeSafety.findings.length > SHOWN && (
+            {findings.length > SHOWN && (
               <Link to={paths.portal.coverage(siteId)} className="mt-2 inline-flex min-h-12 items-center gap-1 text-sm font-medium text-brass-700 hover:underline">
-                {lifeSafety.findings.length - SHOWN} more — see the rules and where <ChevronRight className="size-4" aria-hidden="true" />
+                {findings.length - SHOWN} more — see the rules and where <ChevronRight className="size-4" aria-hidden="true" />
               </Link>
             )}
             <LifeSafetyCaution className="mt-3" />
@@ -113,22 +118,22 @@ export default function PortalSitePage() {
               <p className="text-sm text-slate-500">Nothing due in the coming months.</p>
             ) : (
               <ul className="divide-y divide-line">
-                {devicesDueSoon.slice(0, SHOWN).map((d) => {
-                  const words = lifeWords(d.life);
-                  return (
-                    <li key={d.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                {devicesDueSoon.slice(0, SHOWN).map((d) => (
+                  <li key={d.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                    <span className="flex min-w-0 items-start gap-2">
+                      {d.lifeSafety && <TriangleMark tone="slate" className="mt-1" />}
                       <span className="min-w-0">
                         <span className="block font-medium">{d.description}</span>
                         <span className="block text-sm text-slate-500">{d.kind}</span>
                       </span>
-                      <Badge tone={words.tone === 'bad' ? 'bad' : words.tone === 'warn' ? 'warn' : 'neutral'}>{words.text}</Badge>
-                    </li>
-                  );
-                })}
+                    </span>
+                    <DeviceBadges device={d} />
+                  </li>
+                ))}
               </ul>
             )}
             <Link to={paths.portal.devices(siteId)} className="mt-3 inline-flex min-h-12 items-center gap-1 font-medium text-brass-700 hover:underline">
-              {devicesDueSoon.length > SHOWN ? `${devicesDueSoon.length - SHOWN} more due — all devices` : 'All devices'} <ChevronRight className="size-4" aria-hidden="true" />
+              {devicesDueSoon.length > SHOWN ? `${devicesDueSoon.length - SHOWN} more to look at — all devices` : 'All devices'} <ChevronRight className="size-4" aria-hidden="true" />
             </Link>
           </PortalCard>
 

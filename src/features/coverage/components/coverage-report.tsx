@@ -8,21 +8,33 @@ import { OPENING_KIND_LABELS, ROOM_KIND_LABELS } from '@domain/premises';
 import { LifeSafetyCaution, TriangleMark } from '@/components/coverage/finding-mark';
 import { OpeningSymbol, OpeningStateWords } from '@/components/coverage/opening-symbol';
 import { PlanView, planImageSrc, type PlanPin } from '@/components/coverage/plan-view';
-import { Badge, type BadgeTone } from '@/components/ui/badge';
+import { Badge } from '@/components/ui/badge';
+import { SeverityBadge } from '@/components/ui/severity-badge';
 import { cn } from '@/lib/cn';
 import type { ApiCoverage, ApiCoverageFinding, ApiCoverageRoom, ApiFloor, ApiPremisesZone } from '@/types/api';
-import type { FindingSeverity } from '@domain/coverage';
+import { SEVERITY_ORDER, type Evidence, type Severity } from '@domain/severity';
 import { isLifeSafetyFinding } from '../api/coverage-queries';
 
-export const SEVERITY_WORDS: Record<FindingSeverity, { word: string; tone: BadgeTone }> = {
-  error: { word: 'Gap', tone: 'bad' },
-  warning: { word: 'Check', tone: 'warn' },
-  info: { word: 'Note', tone: 'neutral' },
-};
+/** The dashed "From memory" mark for a rule Mullion knows without a public text to cite (staff only). */
+export function FromMemoryBadge() {
+  return (
+    <Badge tone="neutral" className="border-dashed">
+      From memory
+    </Badge>
+  );
+}
+
+/** The note that explains the "From memory" mark, shown once under a list that carries it. */
+export const FROM_MEMORY_NOTE = '“From memory” marks rules Mullion knows without a public text to cite: check them against your copy of the standard.';
 
 /** A rule's source as people read it: the standard and section, without our own reference-file pointer. */
 export function readableSource(source: string): string {
   return source.replace(/\s+[—-]\s+references\.md\b.*$/i, '').trim();
+}
+
+/** "Smoke alarm" → "smoke alarm", but "CO alarm" stays "CO alarm". */
+function lowerFirst(text: string): string {
+  return /^[A-Z][A-Z]/.test(text) ? text : text.charAt(0).toLowerCase() + text.slice(1);
 }
 
 function plural(n: number, one: string, many = `${one}s`): string {
@@ -95,9 +107,10 @@ export function CoverageLegend() {
 
 interface FindingGroup {
   key: string;
-  severity: FindingSeverity;
+  severity: Severity;
   rule: string;
-  source: string;
+  source: string | undefined;
+  evidence: Evidence | undefined;
   findings: ApiCoverageFinding[];
 }
 
@@ -106,21 +119,23 @@ function groupByRule(findings: readonly ApiCoverageFinding[]): FindingGroup[] {
   const groups = new Map<string, FindingGroup>();
   for (const f of findings) {
     const key = `${f.code}|${f.rule}`;
-    const group = groups.get(key) ?? { key, severity: f.severity, rule: f.rule, source: f.source, findings: [] };
+    const group: FindingGroup = groups.get(key) ?? { key, severity: f.severity, rule: f.rule, source: f.source, evidence: f.evidence, findings: [] };
+    // A rule can be raised at more than one level (a combination alarm's missing half is a check,
+    // a wrongly programmed zone a fix): the group shows the most severe.
+    if ((SEVERITY_ORDER[f.severity] ?? 3) < (SEVERITY_ORDER[group.severity] ?? 3)) group.severity = f.severity;
     group.findings.push(f);
     groups.set(key, group);
   }
-  const order: Record<FindingSeverity, number> = { error: 0, warning: 1, info: 2 };
-  return [...groups.values()].sort((a, b) => (order[a.severity] ?? 3) - (order[b.severity] ?? 3));
+  return [...groups.values()].sort((a, b) => (SEVERITY_ORDER[a.severity] ?? 3) - (SEVERITY_ORDER[b.severity] ?? 3));
 }
 
 function FindingGroupItem({ group, lifeSafety }: { group: FindingGroup; lifeSafety: boolean }) {
-  const severity = SEVERITY_WORDS[group.severity] ?? SEVERITY_WORDS.info;
   return (
     <li className="py-3 first:pt-0 last:pb-0">
-      <div className="flex items-center gap-2">
-        {lifeSafety && <TriangleMark tone={group.severity === 'error' ? 'clay' : 'ochre'} />}
-        <Badge tone={severity.tone}>{severity.word}</Badge>
+      <div className="flex flex-wrap items-center gap-2">
+        {lifeSafety && <TriangleMark tone={group.severity === 'error' ? 'clay' : group.severity === 'warning' ? 'ochre' : 'slate'} />}
+        <SeverityBadge severity={group.severity} />
+        {group.evidence === 'memory' && <FromMemoryBadge />}
         {group.findings.length > 1 && <span className="text-xs text-slate-500">{group.findings.length} places</span>}
       </div>
       <p className="mt-1.5 text-sm font-semibold text-ink">
@@ -135,7 +150,7 @@ function FindingGroupItem({ group, lifeSafety }: { group: FindingGroup; lifeSafe
           </li>
         ))}
       </ul>
-      <p className="mt-1.5 text-xs text-slate-500">Source: {readableSource(group.source)}</p>
+      {group.source && <p className="mt-1.5 text-xs text-slate-500">Source: {readableSource(group.source)}</p>}
     </li>
   );
 }
@@ -165,6 +180,7 @@ export function LifeSafetyFindings({ coverage, className }: { coverage: ApiCover
         ) : (
           <p className="text-sm text-slate-500">No smoke or CO findings for the rooms and devices recorded.</p>
         )}
+        {lifeSafety.some((f) => f.evidence === 'memory') && <p className="text-xs text-slate-500">{FROM_MEMORY_NOTE}</p>}
         {showCaution && <LifeSafetyCaution />}
       </div>
     </section>
@@ -183,11 +199,14 @@ export function OtherFindings({ coverage, className }: { coverage: ApiCoverage; 
       </header>
       <div className="p-4">
         {others.length > 0 ? (
-          <ul className="divide-y divide-line" aria-label="Other findings">
-            {groupByRule(others).map((g) => (
-              <FindingGroupItem key={g.key} group={g} lifeSafety={false} />
-            ))}
-          </ul>
+          <>
+            <ul className="divide-y divide-line" aria-label="Other findings">
+              {groupByRule(others).map((g) => (
+                <FindingGroupItem key={g.key} group={g} lifeSafety={false} />
+              ))}
+            </ul>
+            {others.some((f) => f.evidence === 'memory') && <p className="mt-3 text-xs text-slate-500">{FROM_MEMORY_NOTE}</p>}
+          </>
         ) : (
           <p className="text-sm text-slate-500">
             No gaps: every opening reachable from the ground has a sensor, and every room with openings has interior detection.
@@ -237,7 +256,14 @@ function RoomCoverage({ room }: { room: ApiCoverageRoom }) {
       )}
       {devices.length > 0 && (
         <p className="mt-2 text-xs text-slate-500">
-          Also here: {devices.map((d) => `${d.description} (${DEVICE_TYPE_LABELS[d.deviceType].toLowerCase()})`).join(', ')}
+          Also here:{' '}
+          {devices.map((d, i) => (
+            <span key={d.zoneId}>
+              {i > 0 && ', '}
+              {d.description} ({lowerFirst(DEVICE_TYPE_LABELS[d.deviceType])})
+              {d.counts === false && <span className="font-medium text-clay-600"> — not programmed to protect, does not count</span>}
+            </span>
+          ))}
         </p>
       )}
     </li>

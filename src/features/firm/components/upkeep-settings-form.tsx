@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { AlertTriangle } from 'lucide-react';
-import { DEFAULT_AVERAGE_CURRENT_UA, type UpkeepSettings } from '@domain/device-life';
+import { DEFAULT_AVERAGE_CURRENT_UA, SMOKE_ALARM_MAX_YEARS, mergeUpkeepSettings, type UpkeepSettings } from '@domain/device-life';
 import { DEVICE_TYPE_LABELS, type DeviceType } from '@domain/devices';
 import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
 import { Button } from '@/components/ui/button';
@@ -16,19 +16,38 @@ import { upkeepSettingsQuery, useSaveUpkeepSettings } from '../api/firm-queries'
 /** Device types with a battery we track (our usage model has a current for them). */
 const BATTERY_DEVICES = (Object.keys(DEFAULT_AVERAGE_CURRENT_UA) as DeviceType[]).filter((t) => DEFAULT_AVERAGE_CURRENT_UA[t] !== null);
 
-type Draft = { smoke: string; co: string; soon: string; years: Partial<Record<DeviceType, string>> };
+type Draft = {
+  smoke: string;
+  smokeDetector: string;
+  heat: string;
+  co: string;
+  usable: string;
+  soon: string;
+  years: Partial<Record<DeviceType, string>>;
+};
 
-function toDraft(s: UpkeepSettings): Draft {
+function toDraft(saved: UpkeepSettings): Draft {
+  // An answer from before the newer settings: the defaults fill what it lacks.
+  const s = mergeUpkeepSettings(saved);
   const years: Partial<Record<DeviceType, string>> = {};
   for (const [type, value] of Object.entries(s.batteryYearsOverride) as [DeviceType, number][]) years[type] = String(value);
-  return { smoke: String(s.smokeEndOfLifeYears), co: String(s.coEndOfLifeYears), soon: String(s.soonDays), years };
+  return {
+    smoke: String(s.smokeEndOfLifeYears),
+    smokeDetector: String(s.smokeDetectorEndOfLifeYears),
+    heat: String(s.heatEndOfLifeYears),
+    co: String(s.coEndOfLifeYears),
+    usable: String(s.usableCapacityFraction),
+    soon: String(s.soonDays),
+    years,
+  };
 }
 
 const num = (v: string) => (v.trim() === '' ? Number.NaN : Number(v));
 
 /**
- * The firm's device-life model: smoke and CO alarm end of life, how early upkeep counts as
- * "soon", and battery-life overrides by device type. Only the owner may change it.
+ * The firm's device-life model: smoke alarm, smoke detector, heat and CO end of life, the usable
+ * share of a battery's capacity, how early upkeep counts as "soon", and battery-life overrides by
+ * device type. Only the owner may change it.
  */
 export function UpkeepSettingsForm({ canEdit }: { canEdit: boolean }) {
   const query = useQuery(upkeepSettingsQuery());
@@ -51,7 +70,10 @@ export function UpkeepSettingsForm({ canEdit }: { canEdit: boolean }) {
     save.mutate(
       {
         smokeEndOfLifeYears: num(current.smoke),
+        smokeDetectorEndOfLifeYears: num(current.smokeDetector),
+        heatEndOfLifeYears: num(current.heat),
         coEndOfLifeYears: num(current.co),
+        usableCapacityFraction: num(current.usable),
         soonDays: num(current.soon),
         batteryYearsOverride,
         averageCurrentMicroAmps: query.data.settings.averageCurrentMicroAmps,
@@ -71,12 +93,12 @@ export function UpkeepSettingsForm({ canEdit }: { canEdit: boolean }) {
     );
   };
 
-  const field = (id: string, label: string, value: string, onChange: (v: string) => void, hint: string, errorKey: string) => (
+  const field = (id: string, label: string, value: string, onChange: (v: string) => void, hint: string, errorKey: string, inputMode: 'numeric' | 'decimal' = 'numeric') => (
     <div>
       <label htmlFor={id} className="mb-1 block text-sm font-medium">
         {label}
       </label>
-      <Input id={id} inputMode="numeric" value={value} disabled={!canEdit} invalid={!!errors[errorKey]} aria-describedby={`${id}-hint`} onChange={(e) => onChange(e.target.value)} />
+      <Input id={id} inputMode={inputMode} value={value} disabled={!canEdit} invalid={!!errors[errorKey]} aria-describedby={`${id}-hint`} onChange={(e) => onChange(e.target.value)} />
       <p id={`${id}-hint`} className={`mt-1 text-xs ${errors[errorKey] ? 'font-medium text-clay-600' : 'text-slate-500'}`}>
         {errors[errorKey] ?? hint}
       </p>
@@ -87,9 +109,41 @@ export function UpkeepSettingsForm({ canEdit }: { canEdit: boolean }) {
     <Card title="Device life">
       <div className="space-y-5">
         <FormError message={formError} />
-        <div className="grid gap-4 sm:grid-cols-3">
-          {field('smoke-years', 'Smoke alarms: years in service', current.smoke, (v) => set({ smoke: v }), 'From the date of manufacture. NFPA 72 says 10 years for smoke alarms.', 'smokeEndOfLifeYears')}
-          {field('co-years', 'CO alarms: years in service', current.co, (v) => set({ co: v }), 'From the date of manufacture. No fixed code value: follow the maker’s label.', 'coEndOfLifeYears')}
+        <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+          {field(
+            'smoke-years',
+            'Household smoke alarm life (UL 217), years',
+            current.smoke,
+            (v) => set({ smoke: v }),
+            `NFPA 72 allows at most ${SMOKE_ALARM_MAX_YEARS} years from the date of manufacture.`,
+            'smokeEndOfLifeYears',
+          )}
+          {field(
+            'smoke-detector-years',
+            'System smoke detector life (years)',
+            current.smokeDetector,
+            (v) => set({ smokeDetector: v }),
+            'UL 268 detectors on a fire panel. From the date of manufacture; your firm’s own period.',
+            'smokeDetectorEndOfLifeYears',
+          )}
+          {field(
+            'heat-years',
+            'Heat alarm life (years)',
+            current.heat,
+            (v) => set({ heat: v }),
+            'From the date of manufacture. No fixed code value: your firm’s own period.',
+            'heatEndOfLifeYears',
+          )}
+          {field('co-years', 'CO alarm life (years)', current.co, (v) => set({ co: v }), 'From the date of manufacture. No fixed code value: follow the maker’s label.', 'coEndOfLifeYears')}
+          {field(
+            'usable-share',
+            'Usable share of battery capacity',
+            current.usable,
+            (v) => set({ usable: v }),
+            'Common practice: 0.8. Forecasts use nominal capacity × this share.',
+            'usableCapacityFraction',
+            'decimal',
+          )}
           {field('soon-days', 'Mark as due soon, days ahead', current.soon, (v) => set({ soon: v }), 'Batteries and alarms due within this many days show as “soon”.', 'soonDays')}
         </div>
         <div>

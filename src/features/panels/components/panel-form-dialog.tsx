@@ -5,6 +5,7 @@ import type { z } from 'zod';
 import { useNavigate } from 'react-router-dom';
 import { CP01_DEFAULTS } from '@domain/cp01';
 import { COMM_PATH_LABELS, COMM_PATHS } from '@domain/devices';
+import { PANEL_OCCUPANCIES, SINGLE_PATH_FAILURE_REPORT_MAX_MIN } from '@domain/panel-power';
 import { panelSchema } from '@domain/schemas/panel';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
@@ -19,7 +20,27 @@ import { useCreatePanel, useUpdatePanel } from '../api/panel-queries';
 type PanelFormInput = z.input<typeof panelSchema>;
 type PanelFormValues = z.output<typeof panelSchema>;
 
-const FIELDS = ['label', 'makeModel', 'zoneCapacity', 'wirelessZoneFrom', 'wirelessZoneTo', 'commPath', 'installedOn'] as const satisfies readonly (keyof PanelFormInput)[];
+const FIELDS = [
+  'label',
+  'makeModel',
+  'zoneCapacity',
+  'wirelessZoneFrom',
+  'wirelessZoneTo',
+  'commPath',
+  'installedOn',
+  'occupancy',
+  'standbyCurrentMa',
+  'alarmCurrentMa',
+  'batteryAh',
+  'batteryManufacturedOn',
+  'pathFailureReportMin',
+] as const satisfies readonly (keyof PanelFormInput)[];
+
+/** Home or business, in the form's own short words. */
+const OCCUPANCY_WORDS: Record<(typeof PANEL_OCCUPANCIES)[number], string> = { household: 'Home', commercial: 'Business' };
+
+/** An empty number field is "not recorded" (null), not zero. */
+const numberOrNull = (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v));
 
 /** A new panel: 64 zones, wireless 9–64, cellular, CP-01 default settings. */
 export const NEW_PANEL_DEFAULTS = { zoneCapacity: 64, wirelessZoneFrom: 9, wirelessZoneTo: 64, commPath: 'cellular' } as const;
@@ -65,8 +86,26 @@ function PanelForm({ siteId, panel, firstPanel, onDone }: { siteId: string; pane
           wirelessZoneTo: panel.wirelessZoneTo,
           commPath: panel.commPath,
           installedOn: panel.installedOn ?? '',
+          occupancy: panel.occupancy ?? 'household',
+          standbyCurrentMa: panel.standbyCurrentMa ?? null,
+          alarmCurrentMa: panel.alarmCurrentMa ?? null,
+          batteryAh: panel.batteryAh ?? null,
+          batteryManufacturedOn: panel.batteryManufacturedOn ?? '',
+          pathFailureReportMin: panel.pathFailureReportMin ?? null,
         }
-      : { label: firstPanel ? 'Main panel' : '', makeModel: '', ...NEW_PANEL_DEFAULTS, installedOn: '', settings: { ...CP01_DEFAULTS } },
+      : {
+          label: firstPanel ? 'Main panel' : '',
+          makeModel: '',
+          ...NEW_PANEL_DEFAULTS,
+          installedOn: '',
+          occupancy: 'household',
+          standbyCurrentMa: null,
+          alarmCurrentMa: null,
+          batteryAh: null,
+          batteryManufacturedOn: '',
+          pathFailureReportMin: null,
+          settings: { ...CP01_DEFAULTS },
+        },
   });
   const e = formState.errors;
 
@@ -126,6 +165,44 @@ function PanelForm({ siteId, panel, firstPanel, onDone }: { siteId: string; pane
           <Input type="date" {...register('installedOn')} />
         </FormField>
       </div>
+      <fieldset className="space-y-3 border-t border-line pt-4">
+        <legend className="text-sm font-semibold text-ink">Power and path</legend>
+        <p className="text-xs text-slate-500">
+          Mullion works out the standby battery from these and checks the path when the panel carries smoke, heat or CO devices. Leave a field empty
+          until it is measured.
+        </p>
+        <div className="grid grid-cols-2 gap-x-3 gap-y-4 sm:gap-x-4">
+          <FormField label="Occupancy" error={e.occupancy?.message} hint="Decides the alarm time a fire panel’s battery must cover." className="col-span-2 sm:col-span-1">
+            <Select {...register('occupancy')}>
+              {PANEL_OCCUPANCIES.map((o) => (
+                <option key={o} value={o}>
+                  {OCCUPANCY_WORDS[o]}
+                </option>
+              ))}
+            </Select>
+          </FormField>
+          <FormField label="Battery (Ah)" error={e.batteryAh?.message} hint="The standby battery fitted." className="col-span-2 sm:col-span-1">
+            <Input type="number" inputMode="decimal" min={0} step="any" className="tabular-nums" {...register('batteryAh', { setValueAs: numberOrNull })} />
+          </FormField>
+          <FormField label="Standby current (mA)" error={e.standbyCurrentMa?.message} hint="Everything the panel powers, at rest.">
+            <Input type="number" inputMode="decimal" min={0} step="any" className="tabular-nums" {...register('standbyCurrentMa', { setValueAs: numberOrNull })} />
+          </FormField>
+          <FormField label="Alarm current (mA)" error={e.alarmCurrentMa?.message} hint="With the sirens sounding.">
+            <Input type="number" inputMode="decimal" min={0} step="any" className="tabular-nums" {...register('alarmCurrentMa', { setValueAs: numberOrNull })} />
+          </FormField>
+          <FormField label="Battery label date" error={e.batteryManufacturedOn?.message} hint="The date printed on the battery." className="col-span-2 sm:col-span-1">
+            <Input type="date" {...register('batteryManufacturedOn')} />
+          </FormField>
+          <FormField
+            label="Minutes until a path failure reaches the monitoring center"
+            error={e.pathFailureReportMin?.message}
+            hint={`A fire panel on one path: at most ${SINGLE_PATH_FAILURE_REPORT_MAX_MIN} min (NFPA 72).`}
+            className="col-span-2 sm:col-span-1"
+          >
+            <Input type="number" inputMode="numeric" min={0} step={1} className="tabular-nums" {...register('pathFailureReportMin', { setValueAs: numberOrNull })} />
+          </FormField>
+        </div>
+      </fieldset>
       <div className="flex justify-end gap-2 pt-2">
         <Button variant="secondary" onClick={onDone}>
           Cancel

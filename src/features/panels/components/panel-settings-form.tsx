@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { CP01_DEFAULTS, CP01_RANGES, type Cp01Finding, type Cp01Range, type PanelSettings } from '@domain/cp01';
+import { CP01_DEFAULTS, CP01_RANGES, type Cp01Range, type PanelSettings } from '@domain/cp01';
 import { panelSettingsSchema } from '@domain/schemas/panel';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -9,7 +9,7 @@ import { FormError, FormField } from '@/components/ui/form-field';
 import { Input } from '@/components/ui/input';
 import { useToast } from '@/components/ui/toast';
 import { applyServerErrors } from '@/lib/form-errors';
-import type { ApiPanel } from '@/types/api';
+import type { ApiPanel, ApiPanelFinding } from '@/types/api';
 import { useUpdatePanel } from '../api/panel-queries';
 import { CheckField } from './check-field';
 
@@ -57,7 +57,7 @@ export function PanelSettingsForm({ panel, canEdit }: { panel: ApiPanel; canEdit
     defaultValues: { ...CP01_DEFAULTS, ...panel.settings },
   });
   const e = formState.errors;
-  const findingFor = (key: keyof PanelSettings): Cp01Finding | undefined => panel.audit.find((f) => f.field === key && f.severity !== 'info');
+  const findingFor = (key: keyof PanelSettings): ApiPanelFinding | undefined => panel.audit.find((f) => f.topic === 'cp01' && f.field === key && f.severity !== 'info');
 
   const onSubmit = handleSubmit((settings) => {
     setFormError(null);
@@ -93,7 +93,7 @@ export function PanelSettingsForm({ panel, canEdit }: { panel: ApiPanel; canEdit
                       {rangeHint(f.key, f.unit)}
                       {finding && (
                         <span className={finding.severity === 'error' ? 'block font-medium text-clay-600' : 'block font-medium text-ochre-600'}>
-                          {finding.severity === 'error' ? 'Outside CP-01' : 'Check against CP-01'}: see findings
+                          {finding.severity === 'error' ? 'Outside CP-01' : 'Check against CP-01'}: see panel checks
                         </span>
                       )}
                     </>
@@ -116,7 +116,7 @@ export function PanelSettingsForm({ panel, canEdit }: { panel: ApiPanel; canEdit
                       {e[f.key]?.message ?? f.hint}
                       {finding && (
                         <span className={finding.severity === 'error' ? 'block font-medium text-clay-600' : 'block font-medium text-ochre-600'}>
-                          {finding.severity === 'error' ? 'Outside CP-01' : 'Check against CP-01'}: see findings
+                          {finding.severity === 'error' ? 'Outside CP-01' : 'Check against CP-01'}: see panel checks
                         </span>
                       )}
                     </>

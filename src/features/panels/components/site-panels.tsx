@@ -11,7 +11,7 @@ import { useAppAbility } from '@/lib/ability';
 import type { ApiPanel } from '@/types/api';
 import { panelZonesQuery } from '@/features/zones/api/zone-queries';
 import { sitePanelsQuery } from '../api/panel-queries';
-import { findingSummary } from './cp01-findings';
+import { findingSummary } from './panel-checks';
 import { PanelFormDialog } from './panel-form-dialog';
 
 /** "12 of 64 zones", counting zones that hold a number (not removed ones). */

@@ -6,9 +6,11 @@
 import { cloneElement, useId, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import { z } from 'zod';
 import { Check, Plus, X } from 'lucide-react';
-import { OPENING_KIND_LABELS, OPENING_KINDS, ROOM_KIND_LABELS, ROOM_KINDS } from '@domain/premises';
+import { canServeSleepingArea } from '@domain/coverage';
+import { OPENING_KIND_LABELS, OPENING_KINDS, ROOM_KIND_LABELS, ROOM_KINDS, type RoomKind } from '@domain/premises';
+import { uuid } from '@domain/schemas/common';
 import { floorSchema, openingSchema, roomSchema } from '@domain/schemas/premises';
 import { Button } from '@/components/ui/button';
 import { FormError, FormField } from '@/components/ui/form-field';
@@ -20,8 +22,21 @@ import { IconButton } from './icon-button';
 
 type FloorFormInput = z.input<typeof floorSchema>;
 type FloorFormValues = z.output<typeof floorSchema>;
-type RoomFormInput = z.input<typeof roomSchema>;
-type RoomFormValues = z.output<typeof roomSchema>;
+/** The hall and bedroom selects: an empty choice is no link. */
+const roomLink = z.preprocess((v) => (v === '' || v === undefined ? null : v), uuid.nullable());
+/** The room form: the schema, with the links chosen from selects. */
+const roomFormSchema = roomSchema.extend({ servedByHallId: roomLink, attachedToBedroomId: roomLink });
+type RoomFormInput = z.input<typeof roomFormSchema>;
+type RoomFormValues = z.output<typeof roomFormSchema>;
+
+/** A room of the site as the hall and bedroom selects offer it. */
+export interface SiteRoomOption {
+  id: string;
+  name: string;
+  kind: RoomKind;
+  floorId: string;
+  floorName: string;
+}
 type OpeningFormInput = z.input<typeof openingSchema>;
 type OpeningFormValues = z.output<typeof openingSchema>;
 
@@ -50,15 +65,46 @@ function submitOnEnter(e: KeyboardEvent<HTMLFormElement>, onEscape?: () => void)
   }
 }
 
-function CheckBox({ label, className, ...rest }: React.InputHTMLAttributes<HTMLInputElement> & { label: string }) {
+function CheckBox({ label, className, error, ...rest }: React.InputHTMLAttributes<HTMLInputElement> & { label: string; error?: string | undefined }) {
   const id = useId();
+  const errorId = error ? `${id}-error` : undefined;
   return (
-    <div className={cn('flex h-10 items-center gap-2', className)}>
-      <input id={id} type="checkbox" className="size-4 shrink-0 accent-brass-600" {...rest} />
-      <label htmlFor={id} className="text-sm leading-tight text-ink">
-        {label}
-      </label>
+    <div className={className}>
+      <div className="flex min-h-10 items-center gap-2">
+        <input id={id} type="checkbox" className="size-4 shrink-0 accent-brass-600" aria-invalid={error ? true : undefined} aria-describedby={errorId} {...rest} />
+        <label htmlFor={id} className={cn('text-sm leading-tight', rest.disabled ? 'text-slate-500' : 'text-ink')}>
+          {label}
+        </label>
+      </div>
+      {error && (
+        <p id={errorId} className="text-xs font-medium text-clay-600" role="alert">
+          {error}
+        </p>
+      )}
     </div>
+  );
+}
+
+/** Rooms grouped by floor as <optgroup>s, in the order given. */
+function RoomOptions({ rooms }: { rooms: readonly SiteRoomOption[] }) {
+  const floors: { id: string; name: string; rooms: SiteRoomOption[] }[] = [];
+  for (const room of rooms) {
+    const floor = floors.find((f) => f.id === room.floorId);
+    if (floor) floor.rooms.push(room);
+    else floors.push({ id: room.floorId, name: room.floorName, rooms: [room] });
+  }
+  return (
+    <>
+      {floors.map((f) => (
+        <optgroup key={f.id} label={f.name}>
+          {f.rooms.map((r) => (
+            <option key={r.id} value={r.id}>
+              {r.name}
+            </option>
+          ))}
+        </optgroup>
+      ))}
+    </>
   );
 }
 
@@ -244,19 +290,28 @@ interface RoomFormProps {
   focusRef?: (el: HTMLElement | null) => void;
   hint?: ReactNode;
   autoFocus?: boolean;
+  /** the site's rooms, for a bedroom's hall and a bathroom's bedroom */
+  siteRooms?: readonly SiteRoomOption[];
+  /** editing: the room itself, left out of the choices */
+  roomId?: string;
 }
 
-const ROOM_FIELDS = ['name', 'kind', 'fuelBurningAppliance', 'attachedGarage'] as const;
+const ROOM_FIELDS = ['name', 'kind', 'fuelBurningAppliance', 'attachedGarage', 'servedByHallId', 'hallWithin21FtConfirmed', 'attachedToBedroomId'] as const;
 
-export function RoomForm({ mode, label, initial, onSave, onCancel, onEmpty, focusRef, hint, autoFocus }: RoomFormProps) {
+export function RoomForm({ mode, label, initial, onSave, onCancel, onEmpty, focusRef, hint, autoFocus, siteRooms = [], roomId }: RoomFormProps) {
   const [formError, setFormError] = useState<string | null>(null);
   const [kindByHand, setKindByHand] = useState(mode === 'edit');
   const { register, handleSubmit, setError, setValue, reset, watch, getValues, formState } = useForm<RoomFormInput, unknown, RoomFormValues>({
-    resolver: zodResolver(roomSchema),
+    resolver: zodResolver(roomFormSchema),
     defaultValues: initial,
   });
   const e = formState.errors;
   const kind = watch('kind');
+  const hall = watch('servedByHallId');
+  const hallChosen = typeof hall === 'string' && hall !== '';
+  const others = siteRooms.filter((r) => r.id !== roomId);
+  const halls = others.filter((r) => canServeSleepingArea(r.kind));
+  const bedrooms = others.filter((r) => r.kind === 'bedroom');
   const name = register('name', {
     onChange: (ev: React.ChangeEvent<HTMLInputElement>) => {
       if (kindByHand) return;
@@ -267,7 +322,16 @@ export function RoomForm({ mode, label, initial, onSave, onCancel, onEmpty, focu
   const save = handleSubmit(async (values) => {
     setFormError(null);
     try {
-      await onSave({ ...values, attachedGarage: values.kind === 'garage' && values.attachedGarage });
+      // The links belong to one kind of room each: a bedroom's hall, a bathroom's bedroom.
+      const bedroom = values.kind === 'bedroom';
+      const servedByHallId = bedroom ? values.servedByHallId : null;
+      await onSave({
+        ...values,
+        attachedGarage: values.kind === 'garage' && values.attachedGarage,
+        servedByHallId,
+        hallWithin21FtConfirmed: servedByHallId !== null && values.hallWithin21FtConfirmed,
+        attachedToBedroomId: values.kind === 'bath' ? values.attachedToBedroomId : null,
+      });
       if (mode === 'add') {
         reset(initial);
         setKindByHand(false);
@@ -307,6 +371,50 @@ export function RoomForm({ mode, label, initial, onSave, onCancel, onEmpty, focu
           <Actions mode={mode} busy={formState.isSubmitting} addLabel="Add room" onCancel={onCancel} />
         </div>
       </div>
+      {kind === 'bedroom' && (
+        <fieldset className="rounded-md border border-line bg-card px-3 pt-1 pb-2">
+          <legend className="px-1 text-sm font-medium text-ink">Sleeping area</legend>
+          <div className="grid gap-x-4 gap-y-1 sm:grid-cols-[minmax(0,16rem)_minmax(0,1fr)] sm:items-start">
+            <FormField
+              label="Hall or landing outside it"
+              error={e.servedByHallId?.message}
+              hint={halls.length === 0 ? 'Add the hall or landing outside the bedrooms as a room first.' : undefined}
+            >
+              <Select
+                {...register('servedByHallId', {
+                  onChange: (ev: React.ChangeEvent<HTMLSelectElement>) => {
+                    if (ev.target.value === '') setValue('hallWithin21FtConfirmed', false);
+                  },
+                })}
+              >
+                <option value="">Not chosen yet</option>
+                <RoomOptions rooms={halls} />
+              </Select>
+            </FormField>
+            <CheckBox
+              label="Door within 21 ft of that hall’s alarm (measured on site along the path of travel)"
+              className="sm:mt-6"
+              disabled={!hallChosen}
+              error={e.hallWithin21FtConfirmed?.message}
+              {...register('hallWithin21FtConfirmed')}
+            />
+          </div>
+        </fieldset>
+      )}
+      {kind === 'bath' && (
+        <div className="sm:max-w-80">
+          <FormField
+            label="Attached to bedroom"
+            error={e.attachedToBedroomId?.message}
+            hint={bedrooms.length === 0 ? 'No bedrooms recorded on this site yet.' : 'An en-suite bathroom: its bedroom.'}
+          >
+            <Select {...register('attachedToBedroomId')}>
+              <option value="">Not attached to a bedroom</option>
+              <RoomOptions rooms={bedrooms} />
+            </Select>
+          </FormField>
+        </div>
+      )}
     </FormShell>
   );
 }

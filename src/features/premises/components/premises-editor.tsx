@@ -3,7 +3,7 @@
  * openings, each editable and deletable in place, and per floor a plan image with zone pins.
  */
 import { useMemo, useState } from 'react';
-import { Building, Keyboard, Pencil, Plus, Trash2 } from 'lucide-react';
+import { AlertTriangle, Building, CheckCircle2, CircleHelp, Keyboard, Pencil, Plus, Trash2 } from 'lucide-react';
 import { DEVICE_TYPE_LABELS, ZONE_STATUS_LABELS } from '@domain/devices';
 import { OPENING_KIND_LABELS, ROOM_KIND_LABELS } from '@domain/premises';
 import { OpeningSymbol, OpeningStateWords } from '@/components/coverage/opening-symbol';
@@ -12,6 +12,7 @@ import { Button } from '@/components/ui/button';
 import { Skeleton } from '@/components/ui/skeleton';
 import { useToast } from '@/components/ui/toast';
 import { ApiError } from '@/lib/api-client';
+import { cn } from '@/lib/cn';
 import type { ApiCoverage, ApiCoverageOpening, ApiFloor, ApiOpening, ApiPremises, ApiPremisesZone, ApiRoom } from '@/types/api';
 import {
   useCreateFloor,
@@ -28,7 +29,7 @@ import { ConfirmDialog, type PendingConfirm } from './confirm-dialog';
 import { IconButton } from './icon-button';
 import { FloorPlanPanel } from './floor-plan-panel';
 import { FocusRegistryProvider, focusKeys, useFocusRegistry } from './focus-registry';
-import { FloorForm, OpeningForm, RoomForm } from './inline-forms';
+import { FloorForm, OpeningForm, RoomForm, type SiteRoomOption } from './inline-forms';
 
 function plural(n: number, one: string, many = `${one}s`): string {
   return `${n} ${n === 1 ? one : many}`;
@@ -43,6 +44,8 @@ interface EditorContext {
   siteId: string;
   canEdit: boolean;
   floors: ApiFloor[];
+  /** every room of the site, for a bedroom's hall and a bathroom's bedroom */
+  siteRooms: SiteRoomOption[];
   zones: ApiPremisesZone[] | undefined;
   coverageByOpening: Map<string, ApiCoverageOpening> | undefined;
   confirm: (pending: PendingConfirm) => void;
@@ -81,11 +84,16 @@ function Editor({ siteId, premises, zones, coverage, canEdit }: PremisesEditorPr
     return map;
   }, [coverage]);
   const floors = premises.floors;
+  const siteRooms = useMemo(
+    () => floors.flatMap((f) => f.rooms.map((r) => ({ id: r.id, name: r.name, kind: r.kind, floorId: f.id, floorName: f.name }))),
+    [floors],
+  );
   const nextLevel = floors.length === 0 ? 0 : Math.max(...floors.map((f) => f.level)) + 1;
   const ctx: EditorContext = {
     siteId,
     canEdit,
     floors,
+    siteRooms,
     zones,
     coverageByOpening,
     confirm: setPending,
@@ -246,7 +254,8 @@ function FloorSection({ floor, ctx }: { floor: ApiFloor; ctx: EditorContext }) {
             <RoomForm
               mode="add"
               label={`Add a room to ${floor.name}`}
-              initial={{ name: '', kind: 'other', fuelBurningAppliance: false, attachedGarage: true }}
+              initial={{ name: '', kind: 'other', fuelBurningAppliance: false, attachedGarage: true, servedByHallId: '', hallWithin21FtConfirmed: false, attachedToBedroomId: '' }}
+              siteRooms={ctx.siteRooms}
               focusRef={focus.register(focusKeys.newRoom(floor.id))}
               hint={floor.rooms.length === 0 ? 'The kind follows the name (“Bedroom 2”, “Kitchen”) until you choose one.' : undefined}
               onEmpty={() => focus.request(nextFloor ? focusKeys.newRoom(nextFloor.id) : focusKeys.newFloor)}
@@ -309,7 +318,17 @@ function RoomBlock({ room, floor, ctx }: { room: ApiRoom; floor: ApiFloor; ctx: 
             mode="edit"
             label={`Edit ${room.name}`}
             autoFocus
-            initial={{ name: room.name, kind: room.kind, fuelBurningAppliance: room.fuelBurningAppliance, attachedGarage: room.attachedGarage }}
+            initial={{
+              name: room.name,
+              kind: room.kind,
+              fuelBurningAppliance: room.fuelBurningAppliance,
+              attachedGarage: room.attachedGarage,
+              servedByHallId: room.servedByHallId ?? '',
+              hallWithin21FtConfirmed: room.hallWithin21FtConfirmed ?? false,
+              attachedToBedroomId: room.attachedToBedroomId ?? '',
+            }}
+            siteRooms={ctx.siteRooms}
+            roomId={room.id}
             onCancel={() => {
               setEditing(false);
               focus.request(focusKeys.item(room.id));
@@ -339,6 +358,7 @@ function RoomBlock({ room, floor, ctx }: { room: ApiRoom; floor: ApiFloor; ctx: 
                   ))}
                 </div>
               )}
+              <RoomLinks room={room} floor={floor} siteRooms={ctx.siteRooms} />
             </div>
             {ctx.canEdit && (
               <div className="flex shrink-0 gap-1">
@@ -401,6 +421,49 @@ function RoomBlock({ room, floor, ctx }: { room: ApiRoom; floor: ApiFloor; ctx: 
         ))}
     </li>
   );
+}
+
+/** "Upstairs landing", or "Upstairs landing (First floor)" when it is on another floor. */
+function roomName(id: string, floor: ApiFloor, siteRooms: readonly SiteRoomOption[]): string | null {
+  const room = siteRooms.find((r) => r.id === id);
+  if (!room) return null;
+  return room.floorId === floor.id ? room.name : `${room.name} (${room.floorName})`;
+}
+
+/**
+ * A bedroom's sleeping area and a bathroom's bedroom, in words with a mark and a colour:
+ * "Sleeping area: Upstairs landing · 21 ft confirmed", "… · 21 ft not confirmed", "no hall chosen".
+ */
+export function RoomLinks({ room, floor, siteRooms }: { room: ApiRoom; floor: ApiFloor; siteRooms: readonly SiteRoomOption[] }) {
+  if (room.kind === 'bedroom') {
+    const hall = room.servedByHallId ? roomName(room.servedByHallId, floor, siteRooms) : null;
+    if (!hall)
+      return (
+        <p className="mt-1 flex items-start gap-1.5 text-xs text-ochre-600">
+          <CircleHelp className="mt-px size-3.5 shrink-0" aria-hidden="true" />
+          <span>Sleeping area: no hall or landing chosen</span>
+        </p>
+      );
+    const confirmed = room.hallWithin21FtConfirmed === true;
+    return (
+      <p className={cn('mt-1 flex items-start gap-1.5 text-xs', confirmed ? 'text-sage-600' : 'text-ochre-600')}>
+        {confirmed ? <CheckCircle2 className="mt-px size-3.5 shrink-0" aria-hidden="true" /> : <AlertTriangle className="mt-px size-3.5 shrink-0" aria-hidden="true" />}
+        <span>
+          Sleeping area: <span className="font-medium">{hall}</span> · 21 ft {confirmed ? 'confirmed' : 'not confirmed'}
+        </span>
+      </p>
+    );
+  }
+  if (room.kind === 'bath' && room.attachedToBedroomId) {
+    const bedroom = roomName(room.attachedToBedroomId, floor, siteRooms);
+    if (!bedroom) return null;
+    return (
+      <p className="mt-1 text-xs text-slate-500">
+        Attached to bedroom: <span className="font-medium text-ink">{bedroom}</span>
+      </p>
+    );
+  }
+  return null;
 }
 
 function OpeningRow({ opening, room, ctx }: { opening: ApiOpening; room: ApiRoom; ctx: EditorContext }) {

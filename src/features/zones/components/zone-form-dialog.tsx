@@ -4,11 +4,13 @@ import { useForm, type DefaultValues } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'react-router-dom';
 import { z } from 'zod';
-import { RotateCcw } from 'lucide-react';
+import { AlertTriangle, CheckCircle2, Clock, RotateCcw } from 'lucide-react';
 import {
   BATTERY_TYPES,
   DEVICE_TYPE_LABELS,
+  DEVICE_TYPE_STANDARDS,
   DEVICE_TYPES,
+  isLifeSafetyDevice,
   ZONE_STATUS_LABELS,
   ZONE_STATUSES,
   ZONE_TYPE_LABELS,
@@ -17,6 +19,7 @@ import {
   type DeviceType,
 } from '@domain/devices';
 import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
+import { checkLifeSafetyZone, lifeSafetyZoneTypesFor, type LifeSafetyZoneProblem } from '@domain/life-safety-zone';
 import { uuid } from '@domain/schemas/common';
 import { zoneSchema } from '@domain/schemas/zone';
 import { zoneDefaultsFor, zoneWarnings, type ZoneDefaults } from '@domain/zones';
@@ -31,9 +34,8 @@ import { applyServerErrors } from '@/lib/form-errors';
 import type { ApiPanel, ApiPremises, ApiZone } from '@/types/api';
 import { premisesQuery, usePremisesChanged } from '@/features/premises/api/premises-queries';
 import { CheckField } from '@/features/panels/components/check-field';
-import { useCreateZone, useUpdateZone } from '../api/zone-queries';
+import { panelZonesQuery, useCreateZone, useUpdateZone } from '../api/zone-queries';
 import { elsewhereNotes } from './zone-bits';
-import { isLifeSafetyDevice } from './zone-life-badge';
 
 /** The room and opening selects: an empty choice is no link. */
 const premisesLink = z.preprocess((v) => (v === '' || v === undefined ? null : v), uuid.nullable());
@@ -65,6 +67,22 @@ const FIELDS = [
 const BEHAVIOUR_KEYS = ['zoneType', 'reportsToMonitoring', 'chime', 'supervised'] as const satisfies readonly (keyof ZoneDefaults)[];
 
 const DEFAULT_DEVICE: DeviceType = 'door_contact';
+
+/**
+ * A device type as the select shows it, with the standard a life-safety type is listed to:
+ * "Smoke alarm (UL 217)", "Smoke and CO alarm (combination, UL 217 and UL 2034)".
+ */
+export function deviceTypeOptionLabel(type: DeviceType): string {
+  const label = DEVICE_TYPE_LABELS[type];
+  const standard = DEVICE_TYPE_STANDARDS[type];
+  if (!standard) return label;
+  return label.endsWith(')') ? `${label.slice(0, -1)}, ${standard})` : `${label} (${standard})`;
+}
+
+/** "Hall smoke" lower-cased for running text, keeping "CO" as it is. */
+function lowerFirst(text: string): string {
+  return /^[A-Z][A-Z]/.test(text) ? text : text.charAt(0).toLowerCase() + text.slice(1);
+}
 
 function followsDefaults(zone: ApiZone): boolean {
   const defaults = zoneDefaultsFor(zone.deviceType);
@@ -149,6 +167,28 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
   const serial = watch('serial');
   const input = watch('input');
   const watchOpening = watch('openingId');
+  const zoneType = watch('zoneType');
+  const reportsToMonitoring = watch('reportsToMonitoring');
+  const supervised = watch('supervised');
+  const status = watch('status');
+  const siblings = useQuery({ ...panelZonesQuery(panel.id), enabled: deviceType === 'smoke_co' });
+  const lifeSafetyCheck = isLifeSafetyDevice(deviceType)
+    ? checkLifeSafetyZone(
+        {
+          id: zone?.id ?? 'new',
+          number: typeof number === 'number' && Number.isFinite(number) ? number : null,
+          description: String(watch('description') ?? ''),
+          deviceType,
+          zoneType: zoneType ?? 'perimeter',
+          reportsToMonitoring: reportsToMonitoring === true,
+          supervised: supervised === true,
+          status: status ?? 'active',
+          serial: String(serial ?? ''),
+          panelId: panel.id,
+        },
+        siblings.data ?? [],
+      )
+    : null;
 
   const applyDefaults = (type: DeviceType) => {
     const defaults = zoneDefaultsFor(type);
@@ -248,7 +288,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
             >
               {DEVICE_TYPES.map((t) => (
                 <option key={t} value={t}>
-                  {DEVICE_TYPE_LABELS[t]}
+                  {deviceTypeOptionLabel(t)}
                 </option>
               ))}
             </Select>
@@ -305,6 +345,7 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
             <CheckField label="Chime" hint="The keypad announces it when opened while disarmed." {...register('chime', { onChange: markByHand })} />
             <CheckField label="Supervised" hint="The panel shows trouble if the device stops checking in." {...register('supervised', { onChange: markByHand })} />
           </div>
+          {lifeSafetyCheck && <LifeSafetyBehaviour deviceType={deviceType} problems={lifeSafetyCheck.problems} />}
           <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-xs text-slate-500" aria-live="polite">
             {byHand ? (
               <>
@@ -317,11 +358,11 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
                     setByHand(false);
                   }}
                 >
-                  <RotateCcw className="size-3" aria-hidden="true" /> Use the defaults for {DEVICE_TYPE_LABELS[deviceType].toLowerCase()}
+                  <RotateCcw className="size-3" aria-hidden="true" /> Use the defaults for {lowerFirst(DEVICE_TYPE_LABELS[deviceType])}
                 </button>
               </>
             ) : (
-              <span>Filled from the defaults for {DEVICE_TYPE_LABELS[deviceType].toLowerCase()}.</span>
+              <span>Filled from the defaults for {lowerFirst(DEVICE_TYPE_LABELS[deviceType])}.</span>
             )}
           </div>
           <FormField label="Status" error={e.status?.message} className="sm:max-w-60">
@@ -345,6 +386,50 @@ function ZoneForm({ panel, zone, onDone }: { panel: ApiPanel; zone: ApiZone | un
         </Button>
       </div>
     </form>
+  );
+}
+
+/**
+ * The life-safety zone check on the Behaviour fields as they stand: a smoke, heat or CO device
+ * counts as protection only on a fire or CO zone that reports and is supervised. Names what to change.
+ */
+function LifeSafetyBehaviour({ deviceType, problems }: { deviceType: DeviceType; problems: readonly LifeSafetyZoneProblem[] }) {
+  const blocking = problems.filter((p) => p.code !== 'combination_half_missing');
+  const notes = problems.filter((p) => p.code === 'combination_half_missing');
+  const allowed = lifeSafetyZoneTypesFor(deviceType).map((t) => `“${ZONE_TYPE_LABELS[t]}”`);
+  if (problems.length === 0)
+    return (
+      <p className="flex items-start gap-2 text-xs text-sage-600">
+        <CheckCircle2 className="mt-px size-3.5 shrink-0" aria-hidden="true" />
+        <span>Programmed to protect: {allowed.join(' or ')}, reported and supervised.</span>
+      </p>
+    );
+  return (
+    <div className={blocking.length > 0 ? 'rounded-md border border-clay-600/40 bg-clay-50 px-3 py-2 text-xs' : 'rounded-md border border-ochre-600/40 bg-ochre-50 px-3 py-2 text-xs'}>
+      {blocking.length > 0 && (
+        <>
+          <p className="flex items-start gap-2 font-semibold text-clay-600">
+            <AlertTriangle className="mt-px size-3.5 shrink-0" aria-hidden="true" />
+            <span>As set, this {lowerFirst(DEVICE_TYPE_LABELS[deviceType])} does not count as protection.</span>
+          </p>
+          <ul className="mt-1 list-disc space-y-0.5 pl-5 text-ink">
+            {blocking.map((p) => (
+              <li key={p.code}>
+                {p.what.charAt(0).toUpperCase() + p.what.slice(1)}: {p.fix}.
+              </li>
+            ))}
+          </ul>
+        </>
+      )}
+      {notes.map((p) => (
+        <p key={p.code} className={blocking.length > 0 ? 'mt-1 text-ink' : 'flex items-start gap-2 text-ink'}>
+          {blocking.length === 0 && <Clock className="mt-px size-3.5 shrink-0 text-ochre-600" aria-hidden="true" />}
+          <span>
+            {p.what.charAt(0).toUpperCase() + p.what.slice(1)}: {p.fix}.
+          </span>
+        </p>
+      ))}
+    </div>
   );
 }
 

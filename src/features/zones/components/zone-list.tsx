@@ -17,7 +17,7 @@ import { Select } from '@/components/ui/input';
 import { SearchField } from '@/components/ui/search-field';
 import { cn } from '@/lib/cn';
 import type { ApiZone } from '@/types/api';
-import { ZoneLifeBadge } from './zone-life-badge';
+import { NotProtectingBadge, ZoneLifeBadge } from './zone-life-badge';
 import { elsewhereNotes, ZONE_SWITCHES, ZoneStatusBadge, ZoneSwitches } from './zone-bits';
 
 export const ZONE_PAGE_SIZE = 50;
@@ -101,7 +101,17 @@ export function ZoneList({ zones, canEdit, onEdit, onRemove }: ZoneListProps) {
       },
       { id: 'input', accessorKey: 'input', header: 'Input', enableSorting: false, cell: ({ row }) => <span className="tabular-nums">{row.original.input}</span> },
       { id: 'switches', header: 'Switches', enableSorting: false, cell: ({ row }) => <ZoneSwitches zone={row.original} /> },
-      { id: 'status', header: 'Status', enableSorting: false, cell: ({ row }) => <ZoneStatusBadge status={row.original.status} /> },
+      {
+        id: 'status',
+        header: 'Status',
+        enableSorting: false,
+        cell: ({ row }) => (
+          <span className="flex flex-col items-start gap-1">
+            <ZoneStatusBadge status={row.original.status} />
+            <NotProtectingBadge zone={row.original} />
+          </span>
+        ),
+      },
       { id: 'life', header: 'Device life', enableSorting: false, cell: ({ row }) => <ZoneLifeBadge zone={row.original} /> },
     ];
     if (canEdit)
@@ -302,6 +312,7 @@ function ZoneCard({ zone, canEdit, onEdit, onRemove }: { zone: ApiZone; canEdit:
         </div>
         <ZoneStatusBadge status={zone.status} />
       </div>
+      <NotProtectingBadge zone={zone} className="max-w-full" />
       <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
         <dt className="text-slate-500">Serial</dt>
         <dd className="min-w-0">
