@@ -68,10 +68,14 @@ const EQUIPMENT_WORDS: Partial<Record<DeviceType, string>> = {
 /** The words for a smoke, heat or CO device that is not programmed to protect. */
 const NOT_PROTECTING = 'It is not set up to raise the alarm and call for help, so it does not count as protection. Ask your alarm firm to change how it is programmed.';
 
+/** The words for a device the firm has switched off (bypassed). */
+const BYPASSED = 'It is switched off at the moment (bypassed), so it does not raise the alarm or call for help. Ask your alarm firm when it will be back in service.';
+
 /** What a device does when the alarm is set, in plain words for the household, as programmed. */
-export function whenArmedOf(zone: Pick<Zone, 'deviceType' | 'zoneType' | 'reportsToMonitoring'>, protecting = true): string {
+export function whenArmedOf(zone: Pick<Zone, 'deviceType' | 'zoneType' | 'reportsToMonitoring'>, protecting = true, bypassed = false): string {
   const equipment = EQUIPMENT_WORDS[zone.deviceType];
   if (equipment && EQUIPMENT_DEVICE_TYPES.includes(zone.deviceType)) return equipment;
+  if (bypassed) return BYPASSED;
   if (isLifeSafetyDevice(zone.deviceType) && !protecting) return NOT_PROTECTING;
   const words = WHEN_ARMED[zone.zoneType];
   if (!words) return 'Ask your alarm firm what this device does.';
@@ -83,12 +87,12 @@ export function whenArmedOf(zone: Pick<Zone, 'deviceType' | 'zoneType' | 'report
  * heat and CO devices (the page shows the caution beside them); `protects` is false for one whose
  * zone is not programmed to protect.
  */
-export function presentPortalDevice(zone: Zone, life: DeviceLife, protecting = true) {
+export function presentPortalDevice(zone: Zone, life: DeviceLife, protecting = true, bypassed = false) {
   return {
     id: zone.id,
     description: zone.description,
     kind: DEVICE_TYPE_LABELS[zone.deviceType] ?? zone.deviceType,
-    whenArmed: whenArmedOf(zone, protecting),
+    whenArmed: whenArmedOf(zone, protecting, bypassed),
     chime: Boolean(zone.chime),
     lifeSafety: isLifeSafetyDevice(zone.deviceType),
     protects: !isLifeSafetyDevice(zone.deviceType) || protecting,

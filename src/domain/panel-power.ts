@@ -45,7 +45,8 @@ export const STANDBY_REQUIREMENTS: Readonly<Record<StandbyDuty, StandbyRequireme
     standbyHours: 24,
     alarmMinutes: 4,
     label: 'household fire',
-    clause: 'NFPA 72 Chapter 29, household fire secondary power: 24 h standby (references.md 4.19, PUBLIC), then 4 min of alarm (from memory)',
+    // 24 h: references.md 4.19 (PUBLIC); 4 min: from memory
+    clause: 'NFPA 72 Chapter 29, household fire secondary power: 24 h standby, then 4 min of alarm (the 4 min from memory)',
     evidence: 'public',
   },
   commercial_fire: {
@@ -167,7 +168,8 @@ export function standbyBatteryDueOn(manufacturedOn: string): string {
 /** NFPA 72-2013: a single communications path must report its own failure within 5 minutes — references.md 3.13 (PUBLIC). */
 export const SINGLE_PATH_FAILURE_REPORT_MAX_MIN = 5;
 
-const SINGLE_PATH_CLAUSE = 'NFPA 72-2013 §26.6.3, one communications technology: a failure of the path is annunciated at the supervising station within 5 min — references.md 3.13 (PUBLIC; sub-clause number from memory)';
+// references.md 3.13 (PUBLIC) for the 5 min; the sub-clause number is from memory
+const SINGLE_PATH_CLAUSE = 'NFPA 72-2013 §26.6.3, one communications technology: a failure of the path is annunciated at the supervising station within 5 min (sub-clause number from memory)';
 
 /** Standby battery: sized and dated. Findings are Fix/Check for fire panels and notes for intrusion panels. */
 function standbyFindings(panel: PanelPowerInput, zones: readonly PanelPowerZone[], today: string): PanelPowerFinding[] {

@@ -61,7 +61,15 @@ async function roomNow(room: { id: string; tenantId: string }): Promise<Room> {
   return (await Room.findOne({ where: { tenantId: room.tenantId, id: room.id } }))!;
 }
 
-type Finding = { code: string; severity: string; roomId: string | null; floorId: string | null; zoneId: string | null; message: string; lifeSafety: boolean };
+type Finding = {
+  code: string;
+  severity: string;
+  roomId: string | null;
+  floorId: string | null;
+  zoneId: string | null;
+  message: string;
+  lifeSafety: boolean;
+};
 const codesOf = (data: { findings: Finding[] }) => data.findings.map((f) => f.code);
 
 // ---------------------------------------------------------------------------------------------
@@ -82,7 +90,12 @@ async function rooms(site?: Site) {
 describe('room links: the hall serving a bedroom', () => {
   it('records the hall a bedroom names (create and change), echoed in the room JSON and the premises tree', async () => {
     const r = await rooms();
-    const created = await as.technician.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Second bedroom', kind: 'bedroom', servedByHallId: r.hall.id, hallWithin21FtConfirmed: true });
+    const created = await as.technician.post(`/api/floors/${r.floor.id}/rooms`, {
+      name: 'Second bedroom',
+      kind: 'bedroom',
+      servedByHallId: r.hall.id,
+      hallWithin21FtConfirmed: true,
+    });
     expect(created.status).toBe(201);
     expect(created.body.data).toMatchObject({ kind: 'bedroom', servedByHallId: r.hall.id, hallWithin21FtConfirmed: true, attachedToBedroomId: null });
 
@@ -120,10 +133,14 @@ describe('room links: the hall serving a bedroom', () => {
     // nor a bathroom, a garage, another bedroom
     const garage = await buildRoom(r.floor, { name: 'Garage', kind: 'garage' });
     const other = await buildRoom(r.floor, { name: 'Nursery', kind: 'bedroom' });
-    for (const room of [r.bath, garage, other]) expect400(await as.owner.patch(`/api/rooms/${r.bedroom.id}`, { servedByHallId: room.id }), 'servedByHallId');
+    for (const room of [r.bath, garage, other])
+      expect400(await as.owner.patch(`/api/rooms/${r.bedroom.id}`, { servedByHallId: room.id }), 'servedByHallId');
     // on create too, and nothing is added
     const before = await Room.count({ where: { tenantId: a.firm.id, floorId: r.floor.id } });
-    expect400(await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Guest room', kind: 'bedroom', servedByHallId: r.kitchen.id }), 'servedByHallId');
+    expect400(
+      await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Guest room', kind: 'bedroom', servedByHallId: r.kitchen.id }),
+      'servedByHallId',
+    );
     expect(await Room.count({ where: { tenantId: a.firm.id, floorId: r.floor.id } })).toBe(before);
   });
 
@@ -145,13 +162,18 @@ describe('room links: the hall serving a bedroom', () => {
     expect((await as.owner.patch(`/api/rooms/${r.bedroom.id}`, { servedByHallId: otherFirm.kitchen.id })).body.error).toEqual(here.body.error);
     expect((await roomNow(r.bedroom)).servedByHallId).toBeNull();
     // on create too
-    expect((await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Guest room', kind: 'bedroom', servedByHallId: otherFirm.hall.id })).body.error).toEqual(here.body.error);
+    expect(
+      (await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Guest room', kind: 'bedroom', servedByHallId: otherFirm.hall.id })).body.error,
+    ).toEqual(here.body.error);
   });
 
   it('answers 400 naming servedByHallId when the room is not a bedroom, when it names itself, or for a malformed id', async () => {
     const r = await rooms();
     expect400(await as.owner.patch(`/api/rooms/${r.kitchen.id}`, { servedByHallId: r.hall.id }), 'servedByHallId');
-    expect400(await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Kitchen', kind: 'kitchen', servedByHallId: r.hall.id }), 'servedByHallId');
+    expect400(
+      await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Kitchen', kind: 'kitchen', servedByHallId: r.hall.id }),
+      'servedByHallId',
+    );
     expect400(await as.owner.patch(`/api/rooms/${r.bedroom.id}`, { servedByHallId: r.bedroom.id }), 'servedByHallId');
     expect400(await as.owner.patch(`/api/rooms/${r.bedroom.id}`, { servedByHallId: 'the landing' }), 'servedByHallId');
     expect400(await as.owner.patch(`/api/rooms/${r.bedroom.id}`, { hallWithin21FtConfirmed: 'yes' }), 'hallWithin21FtConfirmed');
@@ -166,7 +188,9 @@ describe('room links: the hall serving a bedroom', () => {
     expect(client.body.error.code).toBe('not_found');
     expect((await as.operator.patch(`/api/rooms/${r.bedroom.id}`, body)).status).toBe(403);
     expect((await as.anonymous.patch(`/api/rooms/${r.bedroom.id}`, body)).status).toBe(401);
-    expect((await as.client.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Guest room', kind: 'bedroom', servedByHallId: r.hall.id })).status).toBe(404);
+    expect((await as.client.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Guest room', kind: 'bedroom', servedByHallId: r.hall.id })).status).toBe(
+      404,
+    );
     expect((await roomNow(r.bedroom)).servedByHallId).toBeNull();
     const theirs = await rooms(b.site);
     expect((await as.owner.patch(`/api/rooms/${theirs.bedroom.id}`, { servedByHallId: theirs.hall.id })).status).toBe(404);
@@ -190,7 +214,10 @@ describe('room links: the bedroom a bathroom is attached to', () => {
     const other = await buildRoom(r.floor, { name: 'Nursery', kind: 'bedroom' });
     // a bedroom is not attached to a bedroom
     expect400(await as.owner.patch(`/api/rooms/${other.id}`, { attachedToBedroomId: r.bedroom.id }), 'attachedToBedroomId');
-    expect400(await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Box room', kind: 'bedroom', attachedToBedroomId: r.bedroom.id }), 'attachedToBedroomId');
+    expect400(
+      await as.owner.post(`/api/floors/${r.floor.id}/rooms`, { name: 'Box room', kind: 'bedroom', attachedToBedroomId: r.bedroom.id }),
+      'attachedToBedroomId',
+    );
     // a bathroom attached to a kitchen or a hall
     const kitchen = await as.owner.patch(`/api/rooms/${r.bath.id}`, { attachedToBedroomId: r.kitchen.id });
     expect400(kitchen, 'attachedToBedroomId');
@@ -200,7 +227,9 @@ describe('room links: the bedroom a bathroom is attached to', () => {
     const theirs = await rooms(b.site);
     const foreign = await as.owner.patch(`/api/rooms/${r.bath.id}`, { attachedToBedroomId: theirs.bedroom.id });
     expect400(foreign, 'attachedToBedroomId');
-    expect((await as.owner.patch(`/api/rooms/${r.bath.id}`, { attachedToBedroomId: '00000000-0000-4000-8000-000000000000' })).body.error).toEqual(foreign.body.error);
+    expect((await as.owner.patch(`/api/rooms/${r.bath.id}`, { attachedToBedroomId: '00000000-0000-4000-8000-000000000000' })).body.error).toEqual(
+      foreign.body.error,
+    );
     expect((await roomNow(r.bath)).attachedToBedroomId).toBeNull();
     expect((await roomNow(other)).attachedToBedroomId).toBeNull();
   });
@@ -215,7 +244,9 @@ describe('room links: cleared when the room they point at goes', () => {
     const bedroom = await roomNow(r.bedroom);
     expect([bedroom.servedByHallId, bedroom.hallWithin21FtConfirmed]).toEqual([null, false]);
     const tree = await as.owner.get(`/api/sites/${r.site.id}/premises`);
-    expect((tree.body.data.floors[0].rooms as { id: string; servedByHallId: string | null }[]).find((x) => x.id === r.bedroom.id)!.servedByHallId).toBeNull();
+    expect(
+      (tree.body.data.floors[0].rooms as { id: string; servedByHallId: string | null }[]).find((x) => x.id === r.bedroom.id)!.servedByHallId,
+    ).toBeNull();
   });
 
   it('deleting the bedroom clears the bathroom’s link; deleting a floor clears links to its rooms from other floors', async () => {
@@ -279,11 +310,23 @@ async function house(smokeIn: 'hall' | 'kitchen') {
   const kitchen = await buildRoom(floor, { name: 'Kitchen', kind: 'kitchen' });
   const panel = await buildPanel(site);
   await buildZone(panel, { number: 9, description: 'Bedroom smoke', deviceType: 'smoke', roomId: bedroom.id });
-  const smoke = await buildZone(panel, { number: 10, description: 'Hall smoke', deviceType: 'smoke', roomId: smokeIn === 'hall' ? hall.id : kitchen.id });
+  const smoke = await buildZone(panel, {
+    number: 10,
+    description: 'Hall smoke',
+    deviceType: 'smoke',
+    roomId: smokeIn === 'hall' ? hall.id : kitchen.id,
+  });
   return { site, floor, hall, bedroom, kitchen, panel, smoke };
 }
 
-const LIFE_SAFETY_GAPS = ['life_safety_zone_programming', 'smoke_missing_sleeping_room', 'smoke_missing_outside_sleeping_area', 'smoke_missing_level', 'sleeping_area_unknown', 'sleeping_area_distance_unconfirmed'];
+const LIFE_SAFETY_GAPS = [
+  'life_safety_zone_programming',
+  'smoke_missing_sleeping_room',
+  'smoke_missing_outside_sleeping_area',
+  'smoke_missing_level',
+  'sleeping_area_unknown',
+  'sleeping_area_distance_unconfirmed',
+];
 
 describe('coverage: a smoke alarm counts as programmed', () => {
   it('the same house: hall smoke on fire_24h is protection; on monitor_only it is a finding naming the zone, and the hall is uncovered', async () => {
@@ -301,12 +344,21 @@ describe('coverage: a smoke alarm counts as programmed', () => {
     const chime = (await as.technician.get(url)).body.data;
     const zoneFinding = (chime.findings as Finding[]).filter((f) => f.code === 'life_safety_zone_programming');
     expect(zoneFinding).toEqual([
-      expect.objectContaining({ severity: 'error', zoneId: h.smoke.id, roomId: h.hall.id, floorId: h.floor.id, lifeSafety: true, evidence: 'public' }),
+      expect.objectContaining({
+        severity: 'error',
+        zoneId: h.smoke.id,
+        roomId: h.hall.id,
+        floorId: h.floor.id,
+        lifeSafety: true,
+        evidence: 'public',
+      }),
     ]);
     expect(zoneFinding[0]!.message).toContain('Zone 10 “Hall smoke”');
     expect(zoneFinding[0]!.message).toContain('set its zone type to Fire, always armed');
     // with the hall alarm not counting, the bedroom's sleeping area has no alarm outside it
-    expect(chime.findings).toContainEqual(expect.objectContaining({ code: 'smoke_missing_outside_sleeping_area', roomId: h.hall.id, severity: 'error' }));
+    expect(chime.findings).toContainEqual(
+      expect.objectContaining({ code: 'smoke_missing_outside_sleeping_area', roomId: h.hall.id, severity: 'error' }),
+    );
     const outside = (chime.findings as Finding[]).find((f) => f.code === 'smoke_missing_outside_sleeping_area')!;
     expect(outside.message).toContain('not programmed to protect');
     // the bedroom's own alarm still covers the level and the sleeping room
@@ -318,7 +370,9 @@ describe('coverage: a smoke alarm counts as programmed', () => {
 
     // the panel's audit names the same zone (CP-01: fire exempt from the abort window and swinger shutdown)
     const panel = await as.technician.get(`/api/panels/${h.panel.id}`);
-    expect(panel.body.data.audit).toContainEqual(expect.objectContaining({ code: 'life_safety_device_on_wrong_zone', topic: 'cp01', lifeSafety: true }));
+    expect(panel.body.data.audit).toContainEqual(
+      expect.objectContaining({ code: 'life_safety_device_on_wrong_zone', topic: 'cp01', lifeSafety: true }),
+    );
 
     // back on a fire zone: the findings go again
     await as.technician.patch(`/api/zones/${h.smoke.id}`, { zoneType: 'fire_24h' }).expect(200);
@@ -359,7 +413,9 @@ describe('coverage: a smoke alarm counts as programmed', () => {
     const h = await house('hall');
     await as.owner.patch(`/api/rooms/${h.bedroom.id}`, { servedByHallId: null }).expect(200);
     const data = (await as.owner.get(`/api/sites/${h.site.id}/coverage`)).body.data;
-    expect(data.findings).toContainEqual(expect.objectContaining({ code: 'sleeping_area_unknown', roomId: h.bedroom.id, severity: 'warning', lifeSafety: true }));
+    expect(data.findings).toContainEqual(
+      expect.objectContaining({ code: 'sleeping_area_unknown', roomId: h.bedroom.id, severity: 'warning', lifeSafety: true }),
+    );
     expect(codesOf(data)).not.toContain('smoke_missing_outside_sleeping_area');
   });
 
@@ -386,7 +442,9 @@ describe('coverage: a smoke alarm counts as programmed', () => {
     const garage = await buildRoom(floor, { name: 'Garage', kind: 'garage', attachedGarage: true });
     const zone = await buildZone(await buildPanel(site), { number: 9, description: 'Garage smoke', deviceType: 'smoke', roomId: garage.id });
     const data = (await as.owner.get(`/api/sites/${site.id}/coverage`)).body.data;
-    expect(data.findings).toContainEqual(expect.objectContaining({ code: 'smoke_in_garage', zoneId: zone.id, roomId: garage.id, severity: 'info', evidence: 'memory' }));
+    expect(data.findings).toContainEqual(
+      expect.objectContaining({ code: 'smoke_in_garage', zoneId: zone.id, roomId: garage.id, severity: 'info', evidence: 'memory' }),
+    );
     expect(data.findings).toContainEqual(expect.objectContaining({ code: 'smoke_missing_level', floorId: floor.id }));
   });
 });
@@ -412,7 +470,14 @@ describe('panels: standby battery', () => {
     expect(res.status).toBe(200);
     expect(res.body.data).toMatchObject({ occupancy: 'household', standbyCurrentMa: 120, alarmCurrentMa: 900, batteryAh: 2.3 });
     // (120 × 24 + 900 × 4 ÷ 60) ÷ 1000 = (2880 + 60) ÷ 1000 = 2.94 Ah; × 1.2 = 3.528 Ah
-    expect(res.body.data.standby).toEqual({ duty: 'household_fire', standbyHours: 24, alarmMinutes: 4, neededAh: 2.94, requiredAh: 3.528, batteryDueOn: null });
+    expect(res.body.data.standby).toEqual({
+      duty: 'household_fire',
+      standbyHours: 24,
+      alarmMinutes: 4,
+      neededAh: 2.94,
+      requiredAh: 3.528,
+      batteryDueOn: null,
+    });
     // 2.3 Ah is short of 3.528 Ah: an error on the battery, life safety
     const short = (res.body.data.audit as AuditFinding[]).find((f) => f.code === 'standby_battery_short');
     expect(short).toMatchObject({ topic: 'power', field: 'batteryAh', severity: 'error', lifeSafety: true });
@@ -438,7 +503,10 @@ describe('panels: standby battery', () => {
     // (120 × 4 + 60) ÷ 1000 = 0.54 Ah; × 1.2 = 0.648 Ah
     expect(i.body.data.standby).toMatchObject({ duty: 'intrusion', standbyHours: 4, alarmMinutes: 4, neededAh: 0.54, requiredAh: 0.648 });
     // short, but an intrusion panel: a warning, not life safety
-    expect((i.body.data.audit as AuditFinding[]).find((f) => f.code === 'standby_battery_short')).toMatchObject({ severity: 'warning', lifeSafety: false });
+    expect((i.body.data.audit as AuditFinding[]).find((f) => f.code === 'standby_battery_short')).toMatchObject({
+      severity: 'warning',
+      lifeSafety: false,
+    });
   });
 
   it('dates the battery: due 5 years after the label date', async () => {
@@ -450,7 +518,11 @@ describe('panels: standby battery', () => {
       expect(old.status).toBe(200);
       expect(old.body.data.batteryManufacturedOn).toBe('2021-03-01');
       expect(old.body.data.standby.batteryDueOn).toBe('2026-03-01');
-      expect((old.body.data.audit as AuditFinding[]).find((f) => f.code === 'standby_battery_old')).toMatchObject({ field: 'batteryManufacturedOn', severity: 'error', lifeSafety: true });
+      expect((old.body.data.audit as AuditFinding[]).find((f) => f.code === 'standby_battery_old')).toMatchObject({
+        field: 'batteryManufacturedOn',
+        severity: 'error',
+        lifeSafety: true,
+      });
       const fresh = await as.owner.patch(`/api/panels/${panel.id}`, { batteryManufacturedOn: '2024-03-01' });
       expect(fresh.body.data.standby.batteryDueOn).toBe('2029-03-01');
       expect(auditCodes(fresh)).not.toContain('standby_battery_old');
@@ -476,9 +548,23 @@ describe('panels: standby battery', () => {
       pathFailureReportMin: 5,
     });
     expect(created.status).toBe(201);
-    expect(created.body.data).toMatchObject({ occupancy: 'commercial', standbyCurrentMa: 95.5, alarmCurrentMa: 650, batteryAh: 7, batteryManufacturedOn: '2025-01-20', pathFailureReportMin: 5 });
+    expect(created.body.data).toMatchObject({
+      occupancy: 'commercial',
+      standbyCurrentMa: 95.5,
+      alarmCurrentMa: 650,
+      batteryAh: 7,
+      batteryManufacturedOn: '2025-01-20',
+      pathFailureReportMin: 5,
+    });
     const renamed = await as.owner.patch(`/api/panels/${created.body.data.id}`, { label: 'Shop panel' });
-    expect(renamed.body.data).toMatchObject({ label: 'Shop panel', occupancy: 'commercial', standbyCurrentMa: 95.5, alarmCurrentMa: 650, batteryAh: 7, pathFailureReportMin: 5 });
+    expect(renamed.body.data).toMatchObject({
+      label: 'Shop panel',
+      occupancy: 'commercial',
+      standbyCurrentMa: 95.5,
+      alarmCurrentMa: 650,
+      batteryAh: 7,
+      pathFailureReportMin: 5,
+    });
     // and clears one when sent null
     const cleared = await as.owner.patch(`/api/panels/${created.body.data.id}`, { batteryAh: null });
     expect(cleared.body.data.batteryAh).toBeNull();
@@ -501,7 +587,15 @@ describe('panels: standby battery', () => {
     for (const [body, field] of cases) expect400(await as.owner.patch(`/api/panels/${panel.id}`, body), field);
     // on create too
     expect400(
-      await as.owner.post(`/api/sites/${a.site.id}/panels`, { label: 'P', makeModel: 'M', zoneCapacity: 64, wirelessZoneFrom: 9, wirelessZoneTo: 64, commPath: 'cellular', standbyCurrentMa: -120 }),
+      await as.owner.post(`/api/sites/${a.site.id}/panels`, {
+        label: 'P',
+        makeModel: 'M',
+        zoneCapacity: 64,
+        wirelessZoneFrom: 9,
+        wirelessZoneTo: 64,
+        commPath: 'cellular',
+        standbyCurrentMa: -120,
+      }),
       'standbyCurrentMa',
     );
     const stored = await Panel.findOne({ where: { tenantId: a.firm.id, id: panel.id } });
@@ -525,7 +619,12 @@ describe('panels: fire reporting over a single path', () => {
   it('a reporting smoke zone over a phone line alone: fire_phone_line_only; a combination path: none', async () => {
     const panel = await firePanel({ commPath: 'phone_line' });
     const res = await as.owner.get(`/api/panels/${panel.id}`);
-    expect((res.body.data.audit as AuditFinding[]).find((f) => f.code === 'fire_phone_line_only')).toMatchObject({ topic: 'power', field: 'commPath', severity: 'error', lifeSafety: true });
+    expect((res.body.data.audit as AuditFinding[]).find((f) => f.code === 'fire_phone_line_only')).toMatchObject({
+      topic: 'power',
+      field: 'commPath',
+      severity: 'error',
+      lifeSafety: true,
+    });
     const combined = await as.owner.patch(`/api/panels/${panel.id}`, { commPath: 'combination' });
     expect(auditCodes(combined)).not.toContain('fire_phone_line_only');
     // an intrusion-only panel on a phone line has nothing to say about fire reporting
@@ -538,7 +637,10 @@ describe('panels: fire reporting over a single path', () => {
     const panel = await firePanel({ commPath: 'cellular' });
     expect(auditCodes(await as.owner.get(`/api/panels/${panel.id}`))).toContain('fire_single_path_unknown');
     const slow = await as.owner.patch(`/api/panels/${panel.id}`, { pathFailureReportMin: 10 });
-    expect((slow.body.data.audit as AuditFinding[]).find((f) => f.code === 'fire_single_path_unsupervised')).toMatchObject({ field: 'pathFailureReportMin', severity: 'error' });
+    expect((slow.body.data.audit as AuditFinding[]).find((f) => f.code === 'fire_single_path_unsupervised')).toMatchObject({
+      field: 'pathFailureReportMin',
+      severity: 'error',
+    });
     expect(auditCodes(slow)).not.toContain('fire_single_path_unknown');
     const fast = await as.owner.patch(`/api/panels/${panel.id}`, { pathFailureReportMin: 5 });
     expect(auditCodes(fast).filter((c) => c.startsWith('fire_'))).toEqual([]);

@@ -91,7 +91,7 @@ export function portalRouter(deps: AppDeps): Router {
       .filter((zone) => zone.status !== 'removed')
       .map((zone) => {
         const check = checkLifeSafetyZone(lifeSafetyInputOf(zone), siblings);
-        return presentPortalDevice(zone, deviceLife(zoneValuesOf(zone), upkeep, today), check.problems.every((p) => p.code === 'combination_half_missing'));
+        return presentPortalDevice(zone, deviceLife(zoneValuesOf(zone), upkeep, today), check.protects.length > 0, zone.status === 'bypassed');
       });
   }
 

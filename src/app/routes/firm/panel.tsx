@@ -201,8 +201,9 @@ export default function PanelPage() {
             <PanelSettingsForm key={JSON.stringify(panel.settings)} panel={panel} canEdit={canEditPanel} />
           </div>
           <div className="order-first space-y-6 lg:order-none lg:col-span-2">
-            <PanelChecks audit={panel.audit} />
-            <StandbyBattery panel={panel} timeZone={timeZone} />
+            {/* one caution on the page: under the zones when they list smoke, heat or CO devices, else in the checks */}
+            <PanelChecks audit={panel.audit} showCaution={!hasLifeSafety} />
+            <StandbyBattery panel={panel} timeZone={timeZone} showCaution={!hasLifeSafety && !panel.audit.some((f) => f.lifeSafety)} />
           </div>
         </div>
 

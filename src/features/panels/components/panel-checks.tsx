@@ -50,7 +50,8 @@ function FindingItem({ finding }: { finding: ApiPanelFinding }) {
 }
 
 /** Every finding on the panel, CP-01 first, then power and path, most severe first within each. */
-export function PanelChecks({ audit }: { audit: readonly ApiPanelFinding[] }) {
+/** `showCaution` is false where the page already shows the caution once (one caution per screen). */
+export function PanelChecks({ audit, showCaution = true }: { audit: readonly ApiPanelFinding[]; showCaution?: boolean }) {
   const lifeSafety = audit.some((f) => f.lifeSafety);
   return (
     <Card title="Panel checks">
@@ -76,7 +77,7 @@ export function PanelChecks({ audit }: { audit: readonly ApiPanelFinding[] }) {
           );
         })}
         {audit.some((f) => f.evidence === 'memory') && <p className="text-xs text-slate-500">{FROM_MEMORY_NOTE}</p>}
-        {lifeSafety && <LifeSafetyCaution />}
+        {lifeSafety && showCaution && <LifeSafetyCaution />}
       </div>
     </Card>
   );

@@ -43,7 +43,8 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-export function StandbyBattery({ panel, timeZone }: { panel: ApiPanel; timeZone?: string | undefined }) {
+/** `showCaution` is false where the page already shows the caution once (one caution per screen). */
+export function StandbyBattery({ panel, timeZone, showCaution = true }: { panel: ApiPanel; timeZone?: string | undefined; showCaution?: boolean }) {
   const standby = panel.standby;
   if (!standby) return null;
   const fire = standby.duty !== 'intrusion';
@@ -97,7 +98,7 @@ export function StandbyBattery({ panel, timeZone }: { panel: ApiPanel; timeZone?
           : 'No smoke, heat or CO devices on this panel: sized for intrusion.'}{' '}
         Sealed lead-acid batteries are due about {SEALED_LEAD_ACID_LIFE_YEARS} years after the date on their label.
       </p>
-      {fire && <LifeSafetyCaution className="mt-3" />}
+      {fire && showCaution && <LifeSafetyCaution className="mt-3" />}
     </Card>
   );
 }
