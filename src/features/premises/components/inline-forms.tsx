@@ -368,7 +368,8 @@ export function RoomForm({ mode, label, initial, onSave, onCancel, onEmpty, focu
             <CheckBox label="Fuel-burning appliance" {...register('fuelBurningAppliance')} />
             {kind === 'garage' && <CheckBox label="Attached garage" {...register('attachedGarage')} />}
           </div>
-          <Actions mode={mode} busy={formState.isSubmitting} addLabel="Add room" onCancel={onCancel} />
+          {/* with the sleeping-area or bedroom links below, the actions come after them */}
+          {kind !== 'bedroom' && kind !== 'bath' && <Actions mode={mode} busy={formState.isSubmitting} addLabel="Add room" onCancel={onCancel} />}
         </div>
       </div>
       {kind === 'bedroom' && (
@@ -413,6 +414,11 @@ export function RoomForm({ mode, label, initial, onSave, onCancel, onEmpty, focu
               <RoomOptions rooms={bedrooms} />
             </Select>
           </FormField>
+        </div>
+      )}
+      {(kind === 'bedroom' || kind === 'bath') && (
+        <div className="flex justify-end">
+          <Actions mode={mode} busy={formState.isSubmitting} addLabel="Add room" onCancel={onCancel} />
         </div>
       )}
     </FormShell>
