@@ -5,6 +5,8 @@ export class HttpError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: Record<string, string> | undefined;
+  /** sent as `Retry-After` (seconds) with a 429 or 503 */
+  retryAfterSeconds: number | undefined;
 
   constructor(status: number, code: string, message: string, fields?: Record<string, string>) {
     super(message);
@@ -43,4 +45,10 @@ export const errors = {
   planLimitReached: (message: string, fields?: Record<string, string>) => make('plan_limit_reached', message, fields),
   /** a hosted service Mullion needs is not set up or not answering */
   serviceUnavailable: (message: string) => new HttpError(503, 'service_unavailable', message),
+  /** too many writes waiting at once: nothing was saved, the same request may be sent again */
+  databaseBusy: () => {
+    const e = new HttpError(503, 'database_busy', 'Mullion is saving a lot of changes just now and did not save this one. Try again in a moment.');
+    e.retryAfterSeconds = 2;
+    return e;
+  },
 };

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ForbiddenError } from '@casl/ability';
-import { UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
+import { TimeoutError as SequelizeTimeoutError, UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
+import { DatabaseBusyError } from '../db/write-queue';
 import multer from 'multer';
 import { HttpError, errors } from '../errors';
 import type { Logger } from '../logger';
@@ -14,6 +15,12 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     let e: HttpError;
     if (err instanceof HttpError) e = err;
     else if (err instanceof ForbiddenError) e = errors.forbidden();
+    else if (err instanceof DatabaseBusyError || err instanceof SequelizeTimeoutError) {
+      // SQLITE_BUSY (another process held the lock past the busy timeout) or too long a wait
+      // in the write queue: the transaction was rolled back, so the client may simply retry.
+      logger.warn('Database busy', { method: req.method, path: req.originalUrl, reason: err.message });
+      e = errors.databaseBusy();
+    }
     else if (err instanceof UniqueConstraintError) e = errors.conflict('That value is already taken.');
     else if (err instanceof SequelizeValidationError) {
       const fields: Record<string, string> = {};
@@ -34,6 +41,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       e = new HttpError(500, 'internal', 'Something went wrong on our side. Nothing you entered was lost; try again.');
     }
     if (res.headersSent) return;
+    if (e.retryAfterSeconds !== undefined) res.set('Retry-After', String(e.retryAfterSeconds));
     res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) } });
   };
 }

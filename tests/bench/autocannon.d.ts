@@ -8,6 +8,17 @@ declare module 'autocannon' {
     method?: string;
     headers?: Record<string, string>;
     timeout?: number;
+    /** cycled per connection; each may rewrite itself before it is sent */
+    requests?: RequestSpec[];
+  }
+
+  export interface RequestSpec {
+    method?: string;
+    path?: string;
+    headers?: Record<string, string>;
+    body?: string;
+    setupRequest?: (req: RequestSpec) => RequestSpec;
+    onResponse?: (status: number, body: string) => void;
   }
 
   export interface Stats {
