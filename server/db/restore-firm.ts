@@ -117,9 +117,12 @@ export async function restoreFirm({
 
       await db.exec('BEGIN IMMEDIATE');
       try {
-        // Sessions of the firm's sign-ins, as they are now: ended, so everyone signs in again
-        // against the restored records.
-        summary.sessionsEnded = await db.run('DELETE FROM main.sessions WHERE userId IN (SELECT id FROM main.users WHERE tenantId = ?)', [tenantId]);
+        // Sessions of the firm's sign-ins, now and in the backup: ended, so everyone signs in
+        // again against the restored records and no old session comes back with its user.
+        summary.sessionsEnded = await db.run(
+          'DELETE FROM main.sessions WHERE userId IN (SELECT id FROM main.users WHERE tenantId = ? UNION SELECT id FROM backup.users WHERE tenantId = ?)',
+          [tenantId, tenantId],
+        );
 
         const removed = new Map<string, number>();
         for (const table of [...tables].reverse()) {
