@@ -42,6 +42,13 @@ type Firm = Awaited<ReturnType<typeof seedFirm>>;
 let t: TestApp;
 let live: string;
 let backupsDir: string;
+const tempDirs: string[] = [];
+/** A fresh folder under the system's temporary folder, removed after the tests. */
+const tempDir = (prefix: string) => {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), prefix));
+  tempDirs.push(dir);
+  return dir;
+};
 
 async function seedFirm() {
   const f = await buildFirmWithSite();
@@ -107,7 +114,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await t.close();
-  fs.rmSync(backupsDir, { recursive: true, force: true });
+  for (const dir of [backupsDir, ...tempDirs]) fs.rmSync(dir, { recursive: true, force: true });
 });
 
 describe('restoring one firm from a backup', () => {
@@ -201,7 +208,7 @@ describe('the check after writing', () => {
   let good: string;
   beforeAll(async () => {
     await seedFirm();
-    good = (await takeBackup({ databaseFile: live, dir: fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-check-')) })).file;
+    good = (await takeBackup({ databaseFile: live, dir: tempDir('mullion-check-') })).file;
   });
 
   it('passes a backup that equals what was copied, and refuses one whose rows differ', async () => {
@@ -252,7 +259,7 @@ describe('a backup taken while the app keeps writing', () => {
       }
     })();
     while (written < 5) await new Promise((r) => setImmediate(r));
-    const result = await takeBackup({ databaseFile: live, dir: fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-busy-')) });
+    const result = await takeBackup({ databaseFile: live, dir: tempDir('mullion-busy-') });
     const writtenDuringBackup = written;
     stop = true;
     await writer;
@@ -269,7 +276,7 @@ describe('a backup taken while the app keeps writing', () => {
 
 describe('retention', () => {
   it('deletes backups older than the kept days and nothing else', () => {
-    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-retention-'));
+    const dir = tempDir('mullion-retention-');
     const now = new Date('2026-12-05T03:00:00Z');
     const daysAgo = (d: number) => new Date(now.getTime() - d * 24 * 60 * 60 * 1000);
     const names = [20, 15, 14.5, 13, 1, 0].map((d) => backupFileName(daysAgo(d)));
@@ -302,7 +309,7 @@ describe('the schedule and its configuration', () => {
   });
 
   it('takes a checked backup and then deletes the old ones', async () => {
-    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-schedule-'));
+    const dir = tempDir('mullion-schedule-');
     const old = path.join(dir, backupFileName(new Date(Date.now() - 30 * 24 * 60 * 60 * 1000)));
     fs.writeFileSync(old, '');
     const schedule = startBackupSchedule({ databaseFile: live, dir, keepDays: 14, intervalHours: 24, logger: silent });
