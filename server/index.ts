@@ -12,6 +12,7 @@ import type { Env } from './config/env';
 import { migrate } from './db/migrator';
 import { createSequelize } from './db/sequelize';
 import { createSmtpMailer, type Mailer } from './emails/mailer';
+import { backupScheduleFor } from './jobs/backup-schedule';
 import { createLogger, type Logger } from './logger';
 import { initModels } from './models/index';
 import { TenantFiles } from './storage/tenant-files';
@@ -55,6 +56,7 @@ export async function startServer(
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(env.port, options.host ?? '0.0.0.0', (err?: Error) => (err ? reject(err) : resolve(s)));
   });
+  const backups = backupScheduleFor(env, logger);
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : env.port;
   return {
@@ -64,6 +66,7 @@ export async function startServer(
     logger,
     async close() {
       closeApp();
+      await backups?.stop();
       // Stop accepting, let requests in flight finish (up to a grace period), then cut the
       // rest and only then close the database, so no handler meets a closed pool.
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));

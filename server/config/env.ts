@@ -7,6 +7,9 @@ import { z } from 'zod';
 const DEV_SESSION_SECRET = 'mullion-development-session-secret-not-for-production';
 const DEV_DATA_KEY = 'mullion-development-data-key-not-for-production';
 
+/** `NAME=` in a .env file means "not set", never 0. */
+const blankAsUnset = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
+
 const schema = z
   .object({
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -28,6 +31,12 @@ const schema = z
     /** the Stripe API base, only to point the SDK at a stand-in in another container (http://stripe:12111) */
     STRIPE_API_BASE: z.url().optional(),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
+    /** where `npm run db:backup` and the schedule write backups of the SQLite database */
+    BACKUP_DIR: z.string().default('./data/backups'),
+    /** backups older than this many days are deleted after a successful new one */
+    BACKUP_KEEP_DAYS: z.preprocess(blankAsUnset, z.coerce.number().int().min(1, 'BACKUP_KEEP_DAYS is at least 1.').max(3650).default(14)),
+    /** hours between scheduled backups in the server process; 0 = none; unset = 24 (0 when NODE_ENV=test) */
+    BACKUP_INTERVAL_HOURS: z.preprocess(blankAsUnset, z.coerce.number().min(0).max(24 * 24, 'BACKUP_INTERVAL_HOURS is at most 576 (24 days).').optional()),
   })
   .superRefine((v, ctx) => {
     if (v.NODE_ENV === 'production') {
@@ -54,6 +63,10 @@ export interface Env {
   stripeWebhookSecret: string | undefined;
   stripeApiBase: string | undefined;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+  backupDir: string;
+  backupKeepDays: number;
+  /** 0 = no scheduled backups */
+  backupIntervalHours: number;
 }
 
 export function readEnv(source: Record<string, string | undefined> = process.env): Env {
@@ -79,5 +92,8 @@ export function readEnv(source: Record<string, string | undefined> = process.env
     stripeWebhookSecret: v.STRIPE_WEBHOOK_SECRET || undefined,
     stripeApiBase: v.STRIPE_API_BASE || undefined,
     logLevel: v.LOG_LEVEL,
+    backupDir: v.BACKUP_DIR || './data/backups',
+    backupKeepDays: v.BACKUP_KEEP_DAYS,
+    backupIntervalHours: v.BACKUP_INTERVAL_HOURS ?? (v.NODE_ENV === 'test' ? 0 : 24),
   };
 }
