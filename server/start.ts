@@ -83,10 +83,10 @@ async function main(): Promise<void> {
     '',
     `Mullion is running at ${env.appUrl}`,
     mail
-      ? `Mail catcher (maildev): ${mail.webUrl}${movedFrom(USUAL_MAIL_WEB_PORT, mail.webPort)} (SMTP ${mail.smtpUrl}${movedFrom(USUAL_SMTP_PORT, mail.smtpPort)})`
+      ? `Mail catcher (maildev): ${mail.webUrl}${movedFrom(USUAL_MAIL_WEB_PORT, mail.webPort)}; SMTP ${mail.smtpUrl}${movedFrom(USUAL_SMTP_PORT, mail.smtpPort)}`
       : `Mail goes out through SMTP_URL.`,
     standIn
-      ? `Payments: local Stripe stand-in at ${standIn.url}${movedFrom(USUAL_STRIPE_STAND_IN_PORT, standIn.port)} (test card 4242 4242 4242 4242; 4000 0000 0000 0002 declines)`
+      ? `Payments: local Stripe stand-in at ${standIn.url}${movedFrom(USUAL_STRIPE_STAND_IN_PORT, standIn.port)}; test card 4242 4242 4242 4242 (4000 0000 0000 0002 declines)`
       : 'Payments: Stripe with STRIPE_SECRET_KEY; webhooks to /api/webhooks/stripe.',
   ];
   if (demo.length > 0) {
