@@ -10,6 +10,7 @@ import type { AppDeps } from './deps';
 import { createCsrf } from './middlewares/csrf';
 import { apiNotFound, errorHandler } from './middlewares/error-handler';
 import { createAttemptLimiter } from './middlewares/rate-limit';
+import { requestLog } from './middlewares/request-log';
 import { sessionGuard } from './middlewares/session-guard';
 import { readOnlyGuard } from './middlewares/read-only-guard';
 import { billingRouter } from './routes/billing/router';
@@ -49,6 +50,8 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.disable('x-powered-by');
   if (deps.secureCookies) app.set('trust proxy', 1);
 
+  // First: every request gets an id (echoed in X-Request-Id) and one log line when it ends.
+  app.use(requestLog(deps.logger));
   app.use(
     helmet({
       contentSecurityPolicy: {

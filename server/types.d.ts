@@ -8,6 +8,8 @@ declare global {
     // passport's req.user is our User model, with its tenant loaded
     interface User extends UserModel {}
     interface Request {
+      /** set first thing by the request log (server/middlewares/request-log.ts) */
+      requestId: string;
       ability: AppAbility;
       ctx: Ctx;
       input: { body: unknown; query: unknown; params: unknown };

@@ -5,7 +5,10 @@
  */
 import type { Env } from '../config/env';
 import { DEFAULT_PLAN_PRICES, startStripeStandIn, type StripeStandIn } from '../fakes/stripe/index';
+import { pickPort } from '../ports';
 import { createStripe, resolvePriceIds, type BillingConfig, type StripeEndpoint } from './config';
+
+export const USUAL_STRIPE_STAND_IN_PORT = 12111;
 
 /** The stand-in's signing secret in development; never used with real Stripe. */
 export const LOCAL_WEBHOOK_SECRET = 'whsec_mullion_local_development_only';
@@ -27,11 +30,16 @@ export async function billingFromEnv(env: Pick<Env, 'stripeSecretKey' | 'stripeW
   return { stripe, webhookSecret: env.stripeWebhookSecret, priceIds: await resolvePriceIds(stripe) };
 }
 
-/** Starts the stand-in and returns the billing config pointed at it; its webhooks go to the app. */
+/**
+ * Starts the stand-in and returns the billing config pointed at it; its webhooks go to the
+ * app. `port` is the preferred port (12111): when it is taken a free one is used, and the
+ * SDK and `standIn.url` follow.
+ */
 export async function startLocalBilling(options: { appUrl: string; port?: number; host?: string }): Promise<{ billing: BillingConfig; standIn: StripeStandIn }> {
+  const host = options.host ?? '127.0.0.1';
   const standIn = await startStripeStandIn({
-    port: options.port ?? 12111,
-    host: options.host ?? '127.0.0.1',
+    port: await pickPort(options.port ?? USUAL_STRIPE_STAND_IN_PORT, host),
+    host,
     webhookSecret: LOCAL_WEBHOOK_SECRET,
     webhookUrl: `${options.appUrl}/api/webhooks/stripe`,
     prices: DEFAULT_PLAN_PRICES,

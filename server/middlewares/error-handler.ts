@@ -5,6 +5,7 @@ import { DatabaseBusyError } from '../db/write-queue';
 import multer from 'multer';
 import { HttpError, errors } from '../errors';
 import type { Logger } from '../logger';
+import { loggablePath } from './request-log';
 
 export const apiNotFound: RequestHandler = (_req, _res, next) => {
   next(errors.notFound('API route'));
@@ -37,12 +38,14 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
           ? errors.tooLarge('The request is too large.')
           : errors.validation('The request body is not valid JSON.', { body: 'Not valid JSON.' });
     } else {
-      logger.error('Unhandled error', { method: req.method, path: req.originalUrl, err });
+      logger.error('Unhandled error', { requestId: req.requestId, method: req.method, path: loggablePath(req.originalUrl), err });
       e = new HttpError(500, 'internal', 'Something went wrong on our side. Nothing you entered was lost; try again.');
     }
     if (res.headersSent) return;
     if (e.retryAfterSeconds !== undefined) res.set('Retry-After', String(e.retryAfterSeconds));
-    res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) } });
+    // A 500 names its request id so the user can quote it; the same id is in X-Request-Id and the log.
+    const requestId = e.status >= 500 && req.requestId ? { requestId: req.requestId } : {};
+    res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}), ...requestId } });
   };
 }
 
