@@ -63,7 +63,6 @@ export async function startServer(
     sequelize,
     logger,
     async close() {
-      closeApp();
       // Stop accepting, let requests in flight finish (up to a grace period), then cut the
       // rest and only then close the database, so no handler meets a closed pool.
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
@@ -72,6 +71,8 @@ export async function startServer(
       await Promise.race([closed, grace]);
       server.closeAllConnections();
       await closed;
+      // requests are done: stop the session store's timer and end the thumbnail workers
+      await closeApp();
       await sequelize.close();
     },
   };
