@@ -12,6 +12,7 @@ import { apiNotFound, errorHandler } from './middlewares/error-handler';
 import { createAttemptLimiter } from './middlewares/rate-limit';
 import { requestLog } from './middlewares/request-log';
 import { sessionGuard } from './middlewares/session-guard';
+import { createThumbnailPool, type Thumbnailer } from './services/thumbnails';
 import { readOnlyGuard } from './middlewares/read-only-guard';
 import { billingRouter } from './routes/billing/router';
 import { stripeWebhookRouter } from './routes/webhooks/router';
@@ -41,11 +42,15 @@ const SESSION_DAYS = 14;
 
 export interface CreatedApp {
   app: Express;
-  /** stops the session store's timer; call at shutdown and in test teardown */
-  close: () => void;
+  /** stops the session store's timer and the thumbnail workers; call at shutdown and in test teardown */
+  close: () => Promise<void>;
 }
 
-export function createApp(deps: AppDeps): CreatedApp {
+/** What createApp needs; without `thumbnails` it starts its own pool (one worker, on first use). */
+export type AppInput = Omit<AppDeps, 'thumbnails'> & { thumbnails?: Thumbnailer | undefined };
+
+export function createApp(input: AppInput): CreatedApp {
+  const deps: AppDeps = { ...input, thumbnails: input.thumbnails ?? createThumbnailPool() };
   const app = express();
   app.disable('x-powered-by');
   if (deps.secureCookies) app.set('trust proxy', 1);
@@ -152,7 +157,13 @@ export function createApp(deps: AppDeps): CreatedApp {
 
   if (deps.serveClient) serveClient(app, deps.serveClient);
 
-  return { app, close: () => store.stopExpiringSessions() };
+  return {
+    app,
+    async close() {
+      store.stopExpiringSessions();
+      await deps.thumbnails.close();
+    },
+  };
 }
 
 /** Serves the built client: hashed assets cached long, every other path gets index.html. */

@@ -3,6 +3,7 @@ import type { BillingConfig } from './billing/config';
 import type { SecretBox } from './crypto/secret-box';
 import type { Mailer } from './emails/mailer';
 import type { Logger } from './logger';
+import type { Thumbnailer } from './services/thumbnails';
 import type { TenantFiles } from './storage/tenant-files';
 
 /** What the app is built from; tests pass their own (memory mailer, temp folders, clock). */
@@ -10,6 +11,8 @@ export interface AppDeps {
   sequelize: Sequelize;
   mailer: Mailer;
   files: TenantFiles;
+  /** makes photo thumbnails in worker threads; createApp starts its own pool when none is given */
+  thumbnails: Thumbnailer;
   logger: Logger;
   appUrl: string;
   sessionSecret: string;

@@ -38,7 +38,7 @@ export const errors = {
   csrf: () => make('csrf_failed', 'This page’s security token is missing or stale. Reload the page and try again.'),
   rateLimited: (message = 'Too many attempts. Wait a few minutes and try again.') => make('rate_limited', message),
   tooLarge: (message: string) => make('too_large', message),
-  unsupportedType: (message: string) => make('unsupported_type', message),
+  unsupportedType: (message: string, fields?: Record<string, string>) => make('unsupported_type', message, fields),
   /** the firm may read but not change anything until billing is sorted out (402) */
   readOnly: (message: string) => make('read_only', message),
   /** adding one more would pass the plan's limit (402) */

@@ -65,7 +65,6 @@ export async function startServer(
     sequelize,
     logger,
     async close() {
-      closeApp();
       await backups?.stop();
       // Stop accepting, let requests in flight finish (up to a grace period), then cut the
       // rest and only then close the database, so no handler meets a closed pool.
@@ -75,6 +74,8 @@ export async function startServer(
       await Promise.race([closed, grace]);
       server.closeAllConnections();
       await closed;
+      // requests are done: stop the session store's timer and end the thumbnail workers
+      await closeApp();
       await sequelize.close();
     },
   };

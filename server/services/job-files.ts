@@ -1,9 +1,10 @@
 /**
  * Photos and files of a job: recognised by their content (PNG, JPEG, WebP, PDF), stored under
  * tenants/<tenantId>/ through the storage module as documents of the job's site, images with a
- * JPEG thumbnail about 320 px wide (jimp, pure JavaScript).
+ * JPEG thumbnail about 320 px wide. An image over the pixel limit is refused from its header
+ * before anything decodes it; the thumbnail is made by a worker thread (thumbnails.ts), never
+ * on the event loop.
  */
-import { Jimp } from 'jimp';
 import { type Ctx } from '../context';
 import { errors } from '../errors';
 import { Document } from '../models/Document';
@@ -11,6 +12,8 @@ import type { Job } from '../models/Job';
 import { sniffImage, sniffPdf, type TenantFiles } from '../storage/tenant-files';
 import { recordAudit } from './audit-recorder';
 import { safeFileName, titleFrom } from './documents';
+import { checkImageHeader } from './image-header';
+import { ThumbnailDecodeError, ThumbnailUnavailableError, type Thumbnailer } from './thumbnails';
 
 export const THUMBNAIL_WIDTH = 320;
 const THUMBNAIL_QUALITY = 78;
@@ -36,20 +39,37 @@ export function detectJobFileType(data: Buffer): DetectedType {
 }
 
 /**
- * A JPEG thumbnail about 320 px wide (never enlarged), or null for a format jimp does not
- * read (WebP). A PNG or JPEG that cannot be decoded is refused (415): it is not the image it
- * claims to be.
+ * A JPEG thumbnail about 320 px wide (never enlarged), made in a worker thread, or null for a
+ * format we do not decode (WebP). The image's header is checked first (pixel limit, readable),
+ * so nothing too large is ever decoded. A PNG or JPEG that cannot be decoded is refused (415): it
+ * is not the image it claims to be.
  */
-export async function makeThumbnail(data: Buffer, type: DetectedType): Promise<Buffer | null> {
-  if (!type.image || type.contentType === 'image/webp') return null;
-  let image: Awaited<ReturnType<typeof Jimp.read>>;
+export async function makeThumbnail(thumbnails: Thumbnailer, data: Buffer, type: DetectedType): Promise<Buffer | null> {
+  if (!type.image) return null;
+  checkImageHeader(data, type.extension.toUpperCase());
+  if (type.contentType === 'image/webp') return null;
   try {
-    image = await Jimp.read(data);
-  } catch {
-    throw errors.unsupportedType(`This file starts like a ${type.extension.toUpperCase()} image but cannot be read as one, so it was not stored. Export the photo again and retry.`);
+    return await thumbnails.make(data, { width: THUMBNAIL_WIDTH, quality: THUMBNAIL_QUALITY });
+  } catch (err) {
+    if (err instanceof ThumbnailUnavailableError) throw errors.serviceUnavailable(`The photo was not stored: ${err.message} Try again in a minute.`);
+    if (err instanceof ThumbnailDecodeError)
+      throw errors.unsupportedType(`This file starts like a ${type.extension.toUpperCase()} image but cannot be read as one, so it was not stored. Export the photo again and retry.`, {
+        file: 'The image cannot be read.',
+      });
+    throw err;
   }
-  if (image.width > THUMBNAIL_WIDTH) image.resize({ w: THUMBNAIL_WIDTH });
-  return image.getBuffer('image/jpeg', { quality: THUMBNAIL_QUALITY });
+}
+
+/** What an upload becomes before anything is stored: its type and thumbnail (call outside a transaction). */
+export interface PreparedJobFile {
+  type: DetectedType;
+  thumbnail: Buffer | null;
+}
+
+/** Recognises the file and makes its thumbnail, off the event loop and before any transaction opens. */
+export async function prepareJobFile(thumbnails: Thumbnailer, data: Buffer): Promise<PreparedJobFile> {
+  const type = detectJobFileType(data);
+  return { type, thumbnail: await makeThumbnail(thumbnails, data, type) };
 }
 
 export interface JobFileInput {
@@ -64,9 +84,8 @@ export interface JobFileInput {
  * Every stored file id is pushed to `stored`, so the caller can remove them if anything fails
  * before the transaction commits: nothing is left behind on error.
  */
-export async function addJobFile(ctx: Ctx, files: TenantFiles, job: Job, input: JobFileInput, stored: string[]): Promise<Document> {
-  const type = detectJobFileType(input.data);
-  const thumbnail = await makeThumbnail(input.data, type);
+export async function addJobFile(ctx: Ctx, files: TenantFiles, job: Job, input: JobFileInput, prepared: PreparedJobFile, stored: string[]): Promise<Document> {
+  const { type, thumbnail } = prepared;
   const fileId = await files.save(job.tenantId, input.data, type.extension);
   stored.push(fileId);
   const thumbnailFileId = thumbnail ? await files.save(job.tenantId, thumbnail, 'jpg') : null;

@@ -15,6 +15,13 @@ export const LIMITS = {
   logoMaxBytes: 1024 * 1024,
   floorPlanMaxBytes: 5 * 1024 * 1024,
   logoTypes: ['image/png', 'image/jpeg', 'image/webp'] as readonly string[],
+  /**
+   * The most pixels (width × height, from the image's header) any uploaded image may have:
+   * 40 megapixels, room for every phone and camera photo and any scanned plan we expect, while
+   * a few-KB file claiming 16000 × 16000 pixels (a decompression bomb) is refused before it is
+   * decoded. Our own choice, common practice; no published standard sets it.
+   */
+  imageMaxPixels: 40_000_000,
   invitationDays: 7,
   passwordResetMinutes: 60,
 } as const;

@@ -10,6 +10,7 @@ import { sniffImage, sniffPdf } from '@server/storage/tenant-files';
 import { safeFileName } from '@server/services/documents';
 import { createTestApp, visitor, type TestApp, type Visitor } from '../support/test-app';
 import { buildClient, buildFirmWithSite, buildSite, buildUser, TEST_PASSWORD } from '../support/factories';
+import { jpegClaiming, webpClaiming } from '../support/images';
 
 let t: TestApp;
 type World = Awaited<ReturnType<typeof buildFirmWithSite>>;
@@ -26,8 +27,8 @@ async function signedIn(user: User): Promise<Visitor> {
 
 const PDF = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n', 'latin1');
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==', 'base64');
-const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]), Buffer.from('JFIF\0'), Buffer.alloc(64, 0x00), Buffer.from([0xff, 0xd9])]);
-const WEBP = Buffer.concat([Buffer.from('RIFF'), Buffer.from([0x24, 0, 0, 0]), Buffer.from('WEBPVP8 '), Buffer.alloc(28, 0)]);
+const JPEG = jpegClaiming(1200, 900);
+const WEBP = webpClaiming(640, 480);
 const TEXT = Buffer.from('This is a plain text note, not a PDF at all.\n');
 
 interface UploadFields {

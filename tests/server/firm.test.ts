@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import { Jimp } from 'jimp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEvent } from '@server/models/AuditEvent';
 import { Tenant } from '@server/models/Tenant';
@@ -26,10 +27,10 @@ const PNG = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==',
   'base64',
 );
-/** The PNG signature followed by padding up to `size` bytes. */
+/** The 1×1 PNG followed by padding up to `size` bytes. */
 function pngOfSize(size: number): Buffer {
   const out = Buffer.alloc(size, 0x20);
-  PNG.copy(out, 0, 0, 8);
+  PNG.copy(out, 0);
   return out;
 }
 
@@ -233,7 +234,7 @@ describe('POST /api/firm/logo and GET /api/firm/logo', () => {
     const vo = await signedIn(owner);
     await uploadLogo(vo, PNG).expect(201);
     const first = filesOf(firm.id);
-    const jpeg = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.alloc(64, 1)]);
+    const jpeg = await new Jimp({ width: 4, height: 3, color: 0x204060ff }).getBuffer('image/jpeg');
     const res = await uploadLogo(vo, jpeg, 'logo.jpg', 'image/jpeg');
     expect(res.status).toBe(201);
     const second = filesOf(firm.id);

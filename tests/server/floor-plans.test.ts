@@ -14,6 +14,7 @@ import { Zone } from '@server/models/Zone';
 import { FLOOR_PLAN_MAX_BYTES } from '@server/services/premises';
 import { createTestApp, visitor, type TestApp, type Visitor } from '../support/test-app';
 import { buildFirmWithSite, buildFloor, buildPanel, buildUser, buildZone, TEST_PASSWORD } from '../support/factories';
+import { jpegClaiming, webpClaiming } from '../support/images';
 
 let t: TestApp;
 let a: Awaited<ReturnType<typeof buildFirmWithSite>>;
@@ -23,14 +24,14 @@ const STAFF = ['owner', 'coordinator', 'technician'] as const;
 
 /** A real 1×1 PNG. */
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==', 'base64');
-/** The PNG signature followed by padding up to `size` bytes. */
+/** The 1×1 PNG followed by padding up to `size` bytes. */
 function pngOfSize(size: number): Buffer {
   const out = Buffer.alloc(size, 0x20);
-  PNG.copy(out, 0, 0, 8);
+  PNG.copy(out, 0);
   return out;
 }
-const JPEG = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.alloc(64, 1)]);
-const WEBP = Buffer.concat([Buffer.from('RIFF'), Buffer.from([0x24, 0, 0, 0]), Buffer.from('WEBPVP8 '), Buffer.alloc(32, 2)]);
+const JPEG = jpegClaiming(1600, 1200);
+const WEBP = webpClaiming(1600, 1200);
 
 async function signedIn(user: User): Promise<Visitor> {
   const v = await visitor(t.app);

@@ -12,6 +12,7 @@ import { Document } from '@server/models/Document';
 import type { User } from '@server/models/User';
 import { createTestApp, visitor, type TestApp, type Visitor } from '../support/test-app';
 import { buildFirmWithSite, buildJob, buildUser, TEST_PASSWORD } from '../support/factories';
+import { webpClaiming } from '../support/images';
 
 let t: TestApp;
 type World = Awaited<ReturnType<typeof buildFirmWithSite>>;
@@ -30,7 +31,7 @@ async function signedIn(user: User): Promise<Visitor> {
 
 const START = new Date('2027-02-10T15:00:00Z');
 const PDF = Buffer.from('%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n', 'latin1');
-const WEBP = Buffer.concat([Buffer.from('RIFF'), Buffer.from([0x24, 0, 0, 0]), Buffer.from('WEBPVP8 '), Buffer.alloc(28, 0)]);
+const WEBP = webpClaiming(640, 480);
 /** The start of a Windows executable, named like a photo. */
 const EXE = Buffer.concat([Buffer.from('MZ'), Buffer.alloc(58, 0x90), Buffer.from('This program cannot be run in DOS mode.\r\n'), Buffer.alloc(200, 0)]);
 /** JPEG's first bytes, then nothing a decoder can read. */

@@ -55,7 +55,7 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}, database: 
     tenantsDir,
     clock,
     async close() {
-      close();
+      await close(); // the session store's timer and the thumbnail workers
       await sequelize.close();
       fs.rmSync(dir, { recursive: true, force: true });
     },

@@ -1,17 +1,18 @@
 import { Router, type Request, type Response } from 'express';
-import multer from 'multer';
 import { Op, type WhereOptions } from 'sequelize';
 import { subject } from '@domain/abilities';
 import { DOCUMENT_MAX_BYTES, documentPatchSchema, documentSchema } from '@domain/schemas/document';
 import { scoped } from '../../context';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
+import { singleUpload } from '../../middlewares/upload';
 import { fieldsFromZod, inputOf, validate } from '../../middlewares/validate';
 import { Document } from '../../models/Document';
 import { Site } from '../../models/Site';
 import { audienceOf } from '../../presenters/client';
 import { presentDocument } from '../../presenters/document';
 import { createDocument, deleteDocument, safeFileName, updateDocument } from '../../services/documents';
+import { checkImageHeader } from '../../services/image-header';
 import { sniffImage, sniffPdf } from '../../storage/tenant-files';
 import { authorizeRecord, inTransaction, pageOf, requireFirm } from '../helpers';
 import { sendStoredFile } from '../send-stored-file';
@@ -35,10 +36,12 @@ export function documentsRouter(deps: AppDeps): Router {
   const router = Router();
   router.use('/sites/:siteId/documents', requireFirm);
   router.use('/documents', requireFirm);
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: DOCUMENT_MAX_BYTES, files: 1, fields: 10, fieldSize: 4096, parts: 12 },
-    defParamCharset: 'utf8',
+  /** Reads the multipart body into memory (nothing touches the disk); over the limit → 413, malformed → 400. */
+  const readUpload = singleUpload({
+    maxBytes: DOCUMENT_MAX_BYTES,
+    tooLargeMessage: `A document may be at most ${MAX_MB} MB.`,
+    what: 'the file',
+    limits: { fields: 10, fieldSize: 4096, parts: 12 },
   });
 
   async function loadSite(req: Request, siteId: string): Promise<Site> {
@@ -58,23 +61,6 @@ export function documentsRouter(deps: AppDeps): Router {
   function authorizeDocuments(req: Request, action: 'read' | 'create', site: Site): void {
     const docs = subject('Document', { tenantId: site.tenantId, siteId: site.id });
     if (!req.ability.can(action, docs)) throw errors.forbidden();
-  }
-
-  /** Reads the multipart body into memory (nothing touches the disk); over the limit → 413. */
-  function readUpload(req: Request, res: Response): Promise<void> {
-    return new Promise((resolve, reject) => {
-      upload.single('file')(req, res, (err: unknown) => {
-        if (!err) return resolve();
-        if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-          return reject(errors.tooLarge(`A document may be at most ${MAX_MB} MB.`));
-        }
-        if (err instanceof multer.MulterError) {
-          return reject(errors.validation(`Upload not accepted: ${err.message}.`, { [err.field ?? 'file']: err.message }));
-        }
-        // a malformed or cut-off multipart body is bad input, not a server fault
-        reject(errors.validation('The upload could not be read. Choose the file again and retry.', { file: 'The upload was incomplete or malformed.' }));
-      });
-    });
   }
 
   router.get('/sites/:siteId/documents', validate({ params: siteDocumentsParams, query: documentListQuery }), async (req, res) => {
@@ -114,6 +100,8 @@ export function documentsRouter(deps: AppDeps): Router {
     }
     const type = sniffPdf(file.buffer) ?? sniffImage(file.buffer);
     if (!type) throw errors.unsupportedType('A document must be a PDF, PNG, JPEG or WebP file. This file’s content is none of those, whatever its name says.');
+    // an image is shown in browsers and the portal: refuse from the header what is too large to decode
+    if (type.contentType.startsWith('image/')) checkImageHeader(file.buffer, type.extension.toUpperCase());
 
     const fileId = await deps.files.save(site.tenantId, file.buffer, type.extension);
     try {

@@ -1,14 +1,15 @@
 import { Router } from 'express';
-import multer from 'multer';
 import { Op } from 'sequelize';
 import { LIMITS } from '@domain/limits';
 import { firmSettingsPatchSchema } from '@domain/schemas/firm';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
+import { singleUpload } from '../../middlewares/upload';
 import { inputOf, validate } from '../../middlewares/validate';
 import { Tenant } from '../../models/Tenant';
 import { presentTenant } from '../../presenters/tenant';
 import { recordAudit } from '../../services/audit-recorder';
+import { checkImageHeader } from '../../services/image-header';
 import { sniffImage } from '../../storage/tenant-files';
 import { authorizeRecord, inTransaction, nowOf, requireFirm } from '../helpers';
 import { sendStoredFile } from '../send-stored-file';
@@ -17,7 +18,12 @@ import { sendStoredFile } from '../send-stored-file';
 export function firmRouter(deps: AppDeps): Router {
   const router = Router();
   router.use('/firm', requireFirm);
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: LIMITS.logoMaxBytes, files: 1 } });
+  const readUpload = singleUpload({
+    maxBytes: LIMITS.logoMaxBytes,
+    tooLargeMessage: `A logo may be at most ${LIMITS.logoMaxBytes / 1024} KB.`,
+    what: 'the logo image',
+    limits: { fields: 5, parts: 6 },
+  });
 
   async function loadFirm(tenantId: string): Promise<Tenant> {
     const tenant = await Tenant.findOne({ where: { id: tenantId } });
@@ -51,40 +57,30 @@ export function firmRouter(deps: AppDeps): Router {
     res.json({ data: presentTenant(tenant, { audience: 'staff', now: nowOf(deps) }) });
   });
 
-  router.post('/firm/logo', (req, res, next) => {
+  router.post('/firm/logo', async (req, res) => {
     // authorize before reading the upload
+    authorizeRecord(req, 'update', 'Tenant', { id: req.ctx.tenantId }, 'firm');
+    await readUpload(req, res);
+    const file = req.file;
+    if (!file || file.size === 0) throw errors.validation('file: Choose a PNG, JPEG or WebP image.', { file: 'Choose a PNG, JPEG or WebP image.' });
+    const kind = sniffImage(file.buffer);
+    if (!kind) throw errors.unsupportedType('A logo must be a PNG, JPEG or WebP image.', { file: 'Choose a PNG, JPEG or WebP image.' });
+    // pages, e-mails and reports show the logo: refuse from the header what is too large to decode
+    checkImageHeader(file.buffer, kind.extension.toUpperCase());
+    const tenant = await loadFirm(req.ctx.tenantId!);
+    const fileId = await deps.files.save(tenant.id, file.buffer, kind.extension);
+    const old = tenant.logoFileId;
     try {
-      authorizeRecord(req, 'update', 'Tenant', { id: req.ctx.tenantId }, 'firm');
+      await inTransaction(req, deps, async (ctx) => {
+        await tenant.update({ logoFileId: fileId, logoContentType: kind.contentType }, { transaction: ctx.transaction });
+        await recordAudit(ctx, { action: 'firm.logo_changed', subjectType: 'Tenant', subjectId: tenant.id, details: { bytes: file.size } });
+      });
     } catch (e) {
-      next(e);
-      return;
+      await deps.files.remove(tenant.id, fileId);
+      throw e;
     }
-    upload.single('file')(req, res, (err: unknown) => {
-      if (err) {
-        next(err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE' ? errors.tooLarge(`A logo may be at most ${LIMITS.logoMaxBytes / 1024} KB.`) : err);
-        return;
-      }
-      (async () => {
-        const file = req.file;
-        if (!file) throw errors.validation('Choose an image file to upload.', { file: 'Choose a PNG, JPEG or WebP image.' });
-        const kind = sniffImage(file.buffer);
-        if (!kind) throw errors.unsupportedType('A logo must be a PNG, JPEG or WebP image.');
-        const tenant = await loadFirm(req.ctx.tenantId!);
-        const fileId = await deps.files.save(tenant.id, file.buffer, kind.extension);
-        const old = tenant.logoFileId;
-        try {
-          await inTransaction(req, deps, async (ctx) => {
-            await tenant.update({ logoFileId: fileId, logoContentType: kind.contentType }, { transaction: ctx.transaction });
-            await recordAudit(ctx, { action: 'firm.logo_changed', subjectType: 'Tenant', subjectId: tenant.id, details: { bytes: file.size } });
-          });
-        } catch (e) {
-          await deps.files.remove(tenant.id, fileId);
-          throw e;
-        }
-        if (old) await deps.files.remove(tenant.id, old).catch(() => undefined);
-        res.status(201).json({ data: presentTenant(tenant, { audience: 'staff', now: nowOf(deps) }) });
-      })().catch(next);
-    });
+    if (old) await deps.files.remove(tenant.id, old).catch(() => undefined);
+    res.status(201).json({ data: presentTenant(tenant, { audience: 'staff', now: nowOf(deps) }) });
   });
 
   router.delete('/firm/logo', async (req, res) => {

@@ -1,5 +1,4 @@
 import { Router, type Request, type Response } from 'express';
-import multer from 'multer';
 import { Op, type WhereOptions } from 'sequelize';
 import { subject } from '@domain/abilities';
 import { JOB_KIND_LABELS } from '@domain/jobs';
@@ -9,12 +8,13 @@ import { scoped } from '../../context';
 import type { AppDeps } from '../../deps';
 import { jobCompletionEmail } from '../../emails/templates';
 import { errors } from '../../errors';
+import { singleUpload } from '../../middlewares/upload';
 import { fieldsFromZod, inputOf, validate } from '../../middlewares/validate';
 import { Document } from '../../models/Document';
 import { Job } from '../../models/Job';
 import { Site } from '../../models/Site';
 import { presentJob, presentJobFile } from '../../presenters/job';
-import { JOB_FILE_TYPES_TEXT, addJobFile, removeStored } from '../../services/job-files';
+import { JOB_FILE_TYPES_TEXT, addJobFile, prepareJobFile, removeStored } from '../../services/job-files';
 import { produceCompletionReport, type ProducedReport } from '../../services/job-report';
 import {
   assertOpen,
@@ -54,10 +54,12 @@ const isTechnician = (req: Request) => req.user?.role === 'technician';
  */
 export function jobsRouter(deps: AppDeps): Router {
   const router = Router();
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: DOCUMENT_MAX_BYTES, files: 1, fields: 10, fieldSize: 4096, parts: 12 },
-    defParamCharset: 'utf8',
+  /** Reads the multipart body into memory (nothing touches the disk); over the limit → 413, malformed → 400. */
+  const readUpload = singleUpload({
+    maxBytes: DOCUMENT_MAX_BYTES,
+    tooLargeMessage: `A job file may be at most ${MAX_MB} MB. This one is larger, so it was not stored; send a smaller photo or a shorter PDF.`,
+    what: 'the file',
+    limits: { fields: 10, fieldSize: 4096, parts: 12 },
   });
 
   /** A job of the firm: 404 unless readable; 403 with a clear message unless the user may change it. */
@@ -74,22 +76,6 @@ export function jobsRouter(deps: AppDeps): Router {
   async function present(req: Request, job: Job) {
     const views = await jobViews(req.ctx, [job]);
     return presentJob(job, views, { audience: 'staff' });
-  }
-
-  /** Reads the multipart body into memory (nothing touches the disk); over the limit → 413. */
-  function readUpload(req: Request, res: Response): Promise<void> {
-    return new Promise((resolve, reject) => {
-      upload.single('file')(req, res, (err: unknown) => {
-        if (!err) return resolve();
-        if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-          return reject(errors.tooLarge(`A job file may be at most ${MAX_MB} MB. This one is larger, so it was not stored; send a smaller photo or a shorter PDF.`));
-        }
-        if (err instanceof multer.MulterError) {
-          return reject(errors.validation(`Upload not accepted: ${err.message}.`, { [err.field ?? 'file']: err.message }));
-        }
-        reject(errors.validation('The upload could not be read. Choose the file again and retry.', { file: 'The upload was incomplete or malformed.' }));
-      });
-    });
   }
 
   // --- List and create -------------------------------------------------------------------------
@@ -219,10 +205,19 @@ export function jobsRouter(deps: AppDeps): Router {
       const first = Object.entries(fields)[0];
       throw errors.validation(first ? `${first[0]}: ${first[1]}` : 'Check the highlighted fields.', fields);
     }
+    // recognised, checked and thumbnailed (in a worker thread) before any transaction opens
+    const prepared = await prepareJobFile(deps.thumbnails, file.buffer);
     const stored: string[] = [];
     try {
       const doc = await inTransaction(req, deps, (ctx) =>
-        addJobFile(ctx, deps.files, job, { data: file.buffer, originalName: file.originalname, title: parsed.data.title, sharedWithClient: parsed.data.sharedWithClient }, stored),
+        addJobFile(
+          ctx,
+          deps.files,
+          job,
+          { data: file.buffer, originalName: file.originalname, title: parsed.data.title, sharedWithClient: parsed.data.sharedWithClient },
+          prepared,
+          stored,
+        ),
       );
       res.status(201).json({ data: presentJobFile(doc, { audience: 'staff' }) });
     } catch (e) {

@@ -1,9 +1,9 @@
 import { Router, type Request, type Response } from 'express';
-import multer from 'multer';
 import { floorPatchSchema, floorSchema, openingPatchSchema, openingSchema, pinSchema, roomPatchSchema, roomSchema } from '@domain/schemas/premises';
 import { scoped } from '../../context';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
+import { singleUpload } from '../../middlewares/upload';
 import { inputOf, validate } from '../../middlewares/validate';
 import { Panel } from '../../models/Panel';
 import type { Zone } from '../../models/Zone';
@@ -29,6 +29,7 @@ import {
   updateRoom,
 } from '../../services/premises';
 import { zoneViewContext } from '../../services/zones';
+import { checkImageHeader } from '../../services/image-header';
 import { sniffImage } from '../../storage/tenant-files';
 import { authorizeRecord, inTransaction, nowOf, pageOf, requireFirm } from '../helpers';
 import { sendStoredFile } from '../send-stored-file';
@@ -47,24 +48,13 @@ const PLAN_MAX_MB = FLOOR_PLAN_MAX_BYTES / (1024 * 1024);
  */
 export function premisesRouter(deps: AppDeps): Router {
   const router = Router();
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: FLOOR_PLAN_MAX_BYTES, files: 1, fields: 5, parts: 6 } });
-
-  /** Reads the multipart body into memory (nothing touches the disk); over the limit → 413. */
-  function readUpload(req: Request, res: Response): Promise<void> {
-    return new Promise((resolve, reject) => {
-      upload.single('file')(req, res, (err: unknown) => {
-        if (!err) return resolve();
-        if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-          return reject(errors.tooLarge(`A floor plan may be at most ${PLAN_MAX_MB} MB.`));
-        }
-        if (err instanceof multer.MulterError) {
-          return reject(errors.validation(`Upload not accepted: ${err.message}.`, { [err.field ?? 'file']: err.message }));
-        }
-        // a malformed or cut-off multipart body is bad input, not a server fault
-        reject(errors.validation('The upload could not be read. Choose the image again and retry.', { file: 'The upload was incomplete or malformed.' }));
-      });
-    });
-  }
+  /** Reads the multipart body into memory (nothing touches the disk); over the limit → 413, malformed → 400. */
+  const readUpload = singleUpload({
+    maxBytes: FLOOR_PLAN_MAX_BYTES,
+    tooLargeMessage: `A floor plan may be at most ${PLAN_MAX_MB} MB.`,
+    what: 'the image',
+    limits: { fields: 5, parts: 6 },
+  });
 
   /** A zone as the zone routes present it. */
   async function presentedZone(req: Request, zone: Zone) {
@@ -131,6 +121,8 @@ export function premisesRouter(deps: AppDeps): Router {
     if (!file || file.size === 0) throw errors.validation('file: Choose a PNG, JPEG or WebP image of the floor plan.', { file: 'Choose a PNG, JPEG or WebP image.' });
     const type = sniffImage(file.buffer);
     if (!type) throw errors.unsupportedType('A floor plan must be a PNG, JPEG or WebP image. This file’s content is none of those, whatever its name says.');
+    // the plan is drawn in browsers and reports: refuse from the header what is too large to decode
+    checkImageHeader(file.buffer, type.extension.toUpperCase());
 
     const fileId = await deps.files.save(loaded.tenantId, file.buffer, type.extension);
     let saved: Awaited<ReturnType<typeof setFloorPlan>>;

@@ -1,9 +1,9 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
-import multer from 'multer';
 import { LIFE_SAFETY_CAUTION } from '@domain/life-safety';
 import { zoneCreateSchema, zonePatchSchema } from '@domain/schemas/zone';
 import type { AppDeps } from '../../deps';
 import { errors } from '../../errors';
+import { singleUpload } from '../../middlewares/upload';
 import { inputOf, validate } from '../../middlewares/validate';
 import { presentZone } from '../../presenters/zone';
 import { downloadName, zonesToCsv } from '../../services/zone-export';
@@ -51,7 +51,12 @@ function presentImportRow(row: ImportRow) {
  */
 export function zonesRouter(deps: AppDeps): Router {
   const router = Router();
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: ZONE_IMPORT_MAX_BYTES, files: 1 } });
+  const readUpload = singleUpload({
+    maxBytes: ZONE_IMPORT_MAX_BYTES,
+    tooLargeMessage: `A zone list may be at most ${ZONE_IMPORT_MAX_BYTES / 1024 / 1024} MB.`,
+    what: 'the CSV file',
+    limits: { fields: 5, parts: 6 },
+  });
 
   router.get('/panels/:panelId/zones', requireFirm, validate({ params: panelParams, query: zoneListQuery }), async (req, res) => {
     const { params, query } = inputOf(req, { params: panelParams, query: zoneListQuery });
@@ -125,16 +130,8 @@ export function zonesRouter(deps: AppDeps): Router {
       authorizePanelZones(req, panel, 'update');
       next();
     },
-    (req, res, next) => {
-      upload.single('file')(req, res, (err: unknown) => {
-        if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-          next(errors.tooLarge(`A zone list may be at most ${ZONE_IMPORT_MAX_BYTES / 1024 / 1024} MB.`));
-          return;
-        }
-        next(err);
-      });
-    },
     async (req, res) => {
+      await readUpload(req, res);
       const { params, query } = inputOf(req, { params: panelParams, query: importQuery });
       const file = req.file;
       if (!file) throw errors.validation('Choose the CSV file to import.', { file: 'Choose a CSV file.' });
