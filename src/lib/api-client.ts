@@ -8,14 +8,25 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: Record<string, string>;
+  /** the server's reference for a failure on its side (also in its log), for the user to quote */
+  readonly requestId: string | undefined;
 
-  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}) {
-    super(message);
+  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}, requestId?: string) {
+    super(requestId ? `${message} (Reference ${requestId}.)` : message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.requestId = requestId;
   }
+}
+
+/** Waits before sending again a write the server did not save because the database was busy. */
+const BUSY_RETRY_CAP_MS = 5_000;
+function waitBeforeRetry(response: Response): Promise<void> {
+  const seconds = Number(response.headers.get('Retry-After'));
+  const ms = Number.isFinite(seconds) && seconds > 0 ? Math.min(seconds * 1000, BUSY_RETRY_CAP_MS) : 1000;
+  return new Promise((resolve) => setTimeout(resolve, ms));
 }
 
 let csrfToken: string | null = null;
@@ -82,7 +93,13 @@ async function send(method: Method, url: string, options: RequestOptions, retrie
       csrfToken = null;
       return send(method, url, options, true);
     }
-    throw new ApiError(response.status, e.code, e.message, e.fields ?? {});
+    // 503 database_busy: nothing was saved, so sending the same request again once is safe.
+    if (e.code === 'database_busy' && !retried) {
+      await waitBeforeRetry(response);
+      return send(method, url, options, true);
+    }
+    const requestId = 'requestId' in e && typeof e.requestId === 'string' ? e.requestId : undefined;
+    throw new ApiError(response.status, e.code, e.message, e.fields ?? {}, requestId);
   }
   throw new ApiError(response.status, 'internal', `The server answered ${response.status}. Try again in a moment.`);
 }
