@@ -6,8 +6,6 @@ import { WriteQueue, isWriteStatement } from './write-queue';
 export interface DatabaseOptions {
   url: string;
   logging?: boolean;
-  /** how long a writer waits for its turn before giving up (503); tests shorten it */
-  writeWaitMs?: number;
 }
 
 /** How long a writer waits for its turn before the request is answered 503 (Retry-After). */
@@ -20,7 +18,7 @@ const WRITE_WAIT_MS = 20_000;
  * in-process queue (write-queue.ts) instead of in SQLite's busy handler. The busy timeout
  * remains for other processes (a backup, the command line).
  */
-export function createSequelize({ url, logging = false, writeWaitMs = WRITE_WAIT_MS }: DatabaseOptions): Sequelize {
+export function createSequelize({ url, logging = false }: DatabaseOptions): Sequelize {
   const log = logging ? (sql: string) => console.log(sql) : false;
   if (url.startsWith('sqlite:')) {
     const storage = url.slice('sqlite:'.length) || ':memory:';
@@ -42,7 +40,7 @@ export function createSequelize({ url, logging = false, writeWaitMs = WRITE_WAIT
         ),
       );
     });
-    queueWrites(sequelize, new WriteQueue({ waitMs: writeWaitMs }));
+    queueWrites(sequelize, new WriteQueue({ waitMs: WRITE_WAIT_MS }));
     return sequelize;
   }
   return new Sequelize(url, { logging: log, define: { underscored: false } });

@@ -26,8 +26,12 @@ interface Waiter {
 export class WriteQueue {
   private held = false;
   private readonly waiters: Waiter[] = [];
+  /** how long a writer waits for its turn (tests shorten it on a running app) */
+  waitMs: number;
 
-  constructor(private readonly options: WriteQueueOptions) {}
+  constructor(options: WriteQueueOptions) {
+    this.waitMs = options.waitMs;
+  }
 
   /** writers waiting for their turn (not counting the one writing) */
   get waiting(): number {
@@ -53,8 +57,8 @@ export class WriteQueue {
         timer: setTimeout(() => {
           const at = this.waiters.indexOf(waiter);
           if (at >= 0) this.waiters.splice(at, 1);
-          reject(new DatabaseBusyError(`Waited ${this.options.waitMs} ms for the database.`));
-        }, this.options.waitMs),
+          reject(new DatabaseBusyError(`Waited ${this.waitMs} ms for the database.`));
+        }, this.waitMs),
       };
       this.waiters.push(waiter);
     });

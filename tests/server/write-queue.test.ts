@@ -147,22 +147,20 @@ describe('PATCH /api/clients/:id from many connections at once', () => {
   });
 
   it('a write that cannot get its turn is a 503 with Retry-After and saves nothing', async () => {
-    const short = await createTestApp({}, { writeWaitMs: 200 });
-    const firm = await buildFirmWithSite();
-    const someone = await visitor(short.app);
-    expect((await someone.signIn(firm.owner.email, TEST_PASSWORD)).status).toBe(200);
-    const queue = writeQueueOf(short.sequelize)!;
+    const queue = writeQueueOf(t.sequelize)!;
+    const usual = queue.waitMs;
     const release = await queue.acquire();
+    queue.waitMs = 200;
     try {
-      const res = await someone.patch(`/api/clients/${firm.client.id}`, { notes: 'Should not be saved' });
+      const res = await owner.patch(`/api/clients/${world.client.id}`, { notes: 'Should not be saved' });
       expect(res.status).toBe(503);
       expect(res.headers['retry-after']).toBe('2');
       expect(res.body.error.code).toBe('database_busy');
     } finally {
+      queue.waitMs = usual;
       release();
     }
-    const saved = await Client.findOne({ where: { id: firm.client.id, tenantId: firm.firm.id } });
+    const saved = await Client.findOne({ where: { id: world.client.id, tenantId: world.firm.id } });
     expect(saved?.notes).not.toBe('Should not be saved');
-    await short.close();
   });
 });

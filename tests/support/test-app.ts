@@ -27,9 +27,9 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Partial<AppDeps> = {}, database: { writeWaitMs?: number } = {}): Promise<TestApp> {
+export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<TestApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-test-'));
-  const sequelize = createSequelize({ url: `sqlite:${path.join(dir, 'test.sqlite')}`, ...database });
+  const sequelize = createSequelize({ url: `sqlite:${path.join(dir, 'test.sqlite')}` });
   initModels(sequelize);
   await migrate(sequelize);
   const mailer = createMemoryMailer();
