@@ -7,6 +7,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { latestMailTo, launchBrowser, linkIn, mailUrl, newContext } from './support/browser';
+import { expectAccessible } from './support/axe';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -38,14 +39,18 @@ describe('a homeowner checks which windows are covered and asks for a visit', ()
     const officeContext = await newContext(browser, { viewport: 'desktop' });
     const office = await officeContext.newPage();
     await office.goto('/sign-in');
+    await expectAccessible(office);
     await office.getByLabel('E-mail').fill('marek@lanternfield.example');
     await office.getByLabel('Password').fill('mullion-demo-2026');
     await office.getByRole('button', { name: 'Sign in' }).click();
     await office.waitForURL('**/app');
+    await expectAccessible(office);
     await office.goto('/app/clients');
+    await expectAccessible(office);
     await office.getByLabel('Search clients').fill('Ashdown');
     await office.getByRole('link', { name: household }).first().click();
     await office.waitForURL('**/app/clients/*');
+    await expectAccessible(office);
     const invitedAt = new Date(Date.now() - 1000);
     await office.getByLabel('E-mail to invite').fill(homeEmail);
     await office.getByRole('button', { name: 'Invite to the portal' }).click();
@@ -61,6 +66,7 @@ describe('a homeowner checks which windows are covered and asks for a visit', ()
     const homeContext = await newContext(browser, { viewport: 'phone' });
     const home = await homeContext.newPage();
     await home.goto(link);
+    await expectAccessible(home);
     await expect.poll(() => home.getByRole('heading', { name: /Welcome to the Lanternfield Alarm Co\. client portal/ }).isVisible()).toBe(true);
     const accent = await home.evaluate(() => getComputedStyle(document.querySelector('[style*="--color-brass-600"]')!).getPropertyValue('--color-brass-600').trim());
     expect(accent.toLowerCase()).not.toBe('#8f5c17'); // the firm's own colour, not Mullion's brass
@@ -68,6 +74,7 @@ describe('a homeowner checks which windows are covered and asks for a visit', ()
     await home.getByLabel('Choose a password').fill('kitchen window latch 9');
     await home.getByRole('button', { name: 'Create my sign-in' }).click();
     await home.waitForURL(/\/portal\/sites\/[0-9a-f-]+$/);
+    await expectAccessible(home);
     const siteId = new URL(home.url()).pathname.split('/').pop()!;
 
     // 4. The home page states the protection summary the server computed.
@@ -78,6 +85,7 @@ describe('a homeowner checks which windows are covered and asks for a visit', ()
     // 5. Doors and windows: every window without a sensor is named.
     await home.getByRole('link', { name: 'Doors & windows' }).click();
     await home.waitForURL(`**/portal/sites/${siteId}/coverage`);
+    await expectAccessible(home);
     const missing = home.getByRole('list', { name: 'Doors and windows without a sensor' });
     await expect.poll(() => missing.isVisible()).toBe(true);
     const unprotectedWindows = coverage.data.floors
@@ -94,6 +102,7 @@ describe('a homeowner checks which windows are covered and asks for a visit', ()
     // 6. The homeowner asks for a visit about one of those windows.
     await home.getByRole('link', { name: 'Visits' }).click();
     await home.waitForURL(`**/portal/sites/${siteId}/service`);
+    await expectAccessible(home);
     const request = `Please add a sensor to the ${unprotectedWindows[0]!.label.toLowerCase()} (${stamp}).`;
     await home.getByLabel('What needs attention?').fill(request);
     await home.getByLabel('When suits you?').fill('Weekday mornings');
@@ -104,11 +113,13 @@ describe('a homeowner checks which windows are covered and asks for a visit', ()
 
     // 7. The coordinator finds the request among the firm's requested jobs.
     await office.goto('/app/jobs');
+    await expectAccessible(office);
     await office.getByRole('button', { name: /requested jobs? waits? for a time/ }).click();
     const jobLink = office.getByRole('link', { name: new RegExp(stamp) });
     await expect.poll(() => jobLink.first().isVisible()).toBe(true);
     await jobLink.first().click();
     await office.waitForURL('**/app/jobs/*');
+    await expectAccessible(office);
     await expect.poll(() => office.getByText('Asked for by the client').isVisible()).toBe(true);
     await expect.poll(() => office.getByRole('link', { name: new RegExp(household) }).first().isVisible()).toBe(true);
     await expect.poll(() => office.getByRole('heading', { name: request }).isVisible()).toBe(true);

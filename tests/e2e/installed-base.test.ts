@@ -7,6 +7,7 @@ import fs from 'node:fs';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, newContext } from './support/browser';
+import { expectAccessible } from './support/axe';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -24,10 +25,12 @@ describe('a coordinator records a new installation', () => {
     const context = await newContext(browser, { viewport: 'desktop', acceptDownloads: true });
     const page = await context.newPage();
     await page.goto('/sign-in');
+    await expectAccessible(page);
     await page.getByLabel('E-mail').fill('marek@lanternfield.example');
     await page.getByLabel('Password').fill('mullion-demo-2026');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/app');
+    await expectAccessible(page);
 
     // Client
     await page.getByRole('link', { name: 'Clients' }).first().click();
@@ -56,6 +59,7 @@ describe('a coordinator records a new installation', () => {
     await panelDialog.getByLabel('Make and model').fill('Wireless hub, series 4');
     await panelDialog.getByRole('button', { name: 'Add panel' }).click();
     await page.waitForURL('**/app/panels/**');
+    await expectAccessible(page);
 
     // First zone: the next free wireless number is prefilled; window contact defaults apply.
     await page.getByRole('button', { name: 'Add zone' }).first().click();

@@ -7,6 +7,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { latestMailTo, launchBrowser, linkIn, mailUrl, newContext, stripeUrl } from './support/browser';
+import { expectAccessible } from './support/axe';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -27,6 +28,7 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     const ownerContext = await newContext(browser, { viewport: 'desktop' });
     const owner = await ownerContext.newPage();
     await owner.goto('/');
+    await expectAccessible(owner);
     await owner.getByRole('link', { name: 'Start free trial' }).click();
     await owner.getByLabel('Firm name').fill(firmName);
     await owner.getByLabel('Your name').fill('Orla Beech');
@@ -34,19 +36,23 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await owner.getByLabel('Password').fill('copper beech hedge 42');
     await owner.getByRole('button', { name: 'Create my firm' }).click();
     await owner.waitForURL('**/app');
+    await expectAccessible(owner);
     await expect.poll(() => owner.getByText(firmName).first().isVisible()).toBe(true);
     await expect.poll(() => owner.getByText(/Trial · 14 days left/).first().isVisible()).toBe(true);
 
     // 2. The owner picks a plan and pays on the checkout page; back in Mullion the firm is active.
     await owner.goto('/app/billing');
+    await expectAccessible(owner);
     await expect.poll(() => owner.getByText(/Trial — 14 days left/).first().isVisible()).toBe(true);
     await owner.getByRole('button', { name: 'Choose Crew' }).click();
     await owner.waitForURL((url) => url.origin === new URL(stripeUrl()).origin && url.pathname.startsWith('/checkout/'));
+    await expectAccessible(owner);
     await expect.poll(() => owner.getByText(firmName).first().isVisible()).toBe(true);
     await expect.poll(() => owner.getByText(/\$149/).first().isVisible()).toBe(true);
     expect(await owner.getByLabel('Card number').inputValue()).toBe('4242 4242 4242 4242');
     await owner.getByRole('button', { name: 'Pay and subscribe' }).click();
     await owner.waitForURL((url) => url.pathname === '/app/billing');
+    await expectAccessible(owner);
     await expect.poll(() => owner.getByText('Payment received. Welcome to the Crew plan.').isVisible(), { timeout: 20_000 }).toBe(true);
     await expect.poll(() => owner.getByText(/Crew plan, \$149 a month, renews/).first().isVisible()).toBe(true);
     await expect.poll(() => owner.getByRole('button', { name: 'Manage payment and plan' }).first().isVisible()).toBe(true);
@@ -72,11 +78,13 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     const techContext = await newContext(browser, { viewport: 'phone' });
     const tech = await techContext.newPage();
     await tech.goto(link);
+    await expectAccessible(tech);
     await expect.poll(() => tech.getByRole('heading', { name: `Join ${firmName}` }).isVisible()).toBe(true);
     await tech.getByLabel('Your name').fill('Tariq Vane');
     await tech.getByLabel('Choose a password').fill('ladder and drill 77');
     await tech.getByRole('button', { name: 'Accept and sign in' }).click();
     await tech.waitForURL('**/app');
+    await expectAccessible(tech);
 
     // A technician's phone bar leads to their day and the jobs, never to firm settings or invitations.
     const nav = tech.getByRole('navigation', { name: 'Workspace' }).last();
@@ -84,11 +92,14 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await expect.poll(() => nav.getByRole('link', { name: 'Jobs' }).isVisible()).toBe(true);
     expect(await nav.getByRole('link', { name: /Settings/ }).count()).toBe(0);
     await tech.goto('/app/staff');
+    await expectAccessible(tech);
     await expect.poll(() => tech.getByRole('cell', { name: /^Tariq Vane/ }).isVisible()).toBe(true);
     expect(await tech.getByRole('button', { name: 'Invite a colleague' }).count()).toBe(0);
     expect(await tech.getByRole('button', { name: /Deactivate/ }).count()).toBe(0);
     await tech.goto('/app/settings');
+    await expectAccessible(tech);
     await tech.waitForURL((url) => url.pathname === '/app');
+    await expectAccessible(tech);
 
     // The owner sees the technician in the staff table now.
     await owner.reload();
@@ -98,10 +109,12 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     const opContext = await newContext(browser, { viewport: 'desktop' });
     const op = await opContext.newPage();
     await op.goto('/sign-in');
+    await expectAccessible(op);
     await op.getByLabel('E-mail').fill('operator@mullion.example');
     await op.getByLabel('Password').fill('mullion-demo-2026');
     await op.getByRole('button', { name: 'Sign in' }).click();
     await op.waitForURL('**/operator');
+    await expectAccessible(op);
     await op.getByLabel('Search firms').fill(stamp);
     await op.getByRole('link', { name: firmName }).click();
     await op.getByRole('button', { name: 'Suspend firm' }).click();
@@ -112,7 +125,9 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
 
     // 7. The technician's next page load is refused: back to sign-in, with the reason.
     await tech.goto('/app/staff');
+    await expectAccessible(tech);
     await tech.waitForURL((url) => url.pathname === '/sign-in');
+    await expectAccessible(tech);
     await expect.poll(() => tech.getByRole('alert').filter({ hasText: 'suspended' }).isVisible()).toBe(true);
     // ...and signing in again is refused too.
     await tech.getByLabel('E-mail').fill(techEmail);
@@ -131,6 +146,7 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await tech.getByRole('button', { name: 'Sign in' }).click();
     // back where the refused page load wanted to go
     await tech.waitForURL((url) => url.pathname === '/app/staff');
+    await expectAccessible(tech);
     await expect.poll(() => tech.getByRole('cell', { name: /^Tariq Vane/ }).isVisible()).toBe(true);
 
     await Promise.all([ownerContext.close(), techContext.close(), opContext.close()]);

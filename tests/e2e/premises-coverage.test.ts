@@ -7,6 +7,7 @@ import zlib from 'node:zlib';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, newContext } from './support/browser';
+import { expectAccessible } from './support/axe';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -56,10 +57,12 @@ describe('premises and coverage', () => {
     const context = await newContext(browser, { viewport: 'desktop' });
     const page = await context.newPage();
     await page.goto('/sign-in');
+    await expectAccessible(page);
     await page.getByLabel('E-mail').fill('luis@tamsworthvale.example');
     await page.getByLabel('Password').fill('mullion-demo-2026');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/app');
+    await expectAccessible(page);
 
     // A new client, site, panel and two zones (set up through the API; the installed-base test drives those screens).
     const client = await apiCall<{ id: string }>(page, 'POST', '/api/clients', { name: `Odile Ferrant ${stamp}` });
@@ -70,6 +73,7 @@ describe('premises and coverage', () => {
 
     // Two floors with rooms and openings, typed with Enter.
     await page.goto(`/app/sites/${site.id}/premises`);
+    await expectAccessible(page);
     const floorForm = page.getByRole('form', { name: 'Add a floor' });
     await floorForm.getByLabel('Floor name', { exact: true }).fill('Ground floor');
     await floorForm.getByLabel('Floor name', { exact: true }).press('Enter');
@@ -97,12 +101,14 @@ describe('premises and coverage', () => {
 
     // Coverage before any zone is linked.
     await page.goto(`/app/sites/${site.id}/coverage`);
+    await expectAccessible(page);
     await expect.poll(() => page.getByText(/^0 of 3 openings protected/).first().isVisible()).toBe(true);
     await expect.poll(() => page.getByText('NFPA 72: a smoke alarm in every sleeping room').first().isVisible()).toBe(true);
     await expect.poll(() => page.getByText(/Local codes and the authority having jurisdiction decide what is required/).first().isVisible()).toBe(true);
 
     // Link the den window zone to its opening in the zone form.
     await page.goto(`/app/panels/${panel.id}`);
+    await expectAccessible(page);
     await page.getByRole('button', { name: 'Edit zone 1, Den window' }).first().click();
     const zoneDialog = page.getByRole('dialog', { name: 'Edit zone 1' });
     await zoneDialog.getByLabel('Door or window').selectOption({ label: 'Den · Den window' });
@@ -110,11 +116,13 @@ describe('premises and coverage', () => {
     await expect.poll(() => page.getByRole('dialog', { name: 'Edit zone 1' }).isVisible()).toBe(false);
 
     await page.goto(`/app/sites/${site.id}/coverage`);
+    await expectAccessible(page);
     await expect.poll(() => page.getByText(/^1 of 3 openings protected/).first().isVisible()).toBe(true);
     await expect.poll(() => page.getByText('Protected — Den window').first().isVisible()).toBe(true);
 
     // A plan image for the ground floor, and a pin for the front door zone.
     await page.goto(`/app/sites/${site.id}/premises`);
+    await expectAccessible(page);
     await page.locator('input[type=file]').first().setInputFiles({ name: 'plan.png', mimeType: 'image/png', buffer: png(200, 120) });
     const plan = page.getByRole('img', { name: 'Floor plan of Ground floor' });
     await expect.poll(() => plan.isVisible()).toBe(true);

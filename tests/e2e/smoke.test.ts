@@ -5,6 +5,7 @@
 import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { baseUrl, launchBrowser, newContext } from './support/browser';
+import { expectAccessible, seriousViolations } from './support/axe';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -37,6 +38,7 @@ describe('smoke', () => {
     });
 
     const response = await page.goto('/', { waitUntil: 'load' });
+    await expectAccessible(page);
     expect(response?.status()).toBe(200);
     expect(response?.headers()['content-security-policy']).toContain("default-src 'self'");
     await page.waitForLoadState('networkidle');
@@ -45,6 +47,21 @@ describe('smoke', () => {
     const violations = await page.evaluate(() => (window as unknown as { __cspViolations: string[] }).__cspViolations);
     expect(violations).toEqual([]);
     expect(cspConsoleErrors).toEqual([]);
+  });
+
+  it('the accessibility check runs under the strict policy and names what it finds', async () => {
+    const page = await context.newPage();
+    await page.goto('/', { waitUntil: 'load' });
+    await expectAccessible(page);
+    // an icon-only button without a name and an image without a text alternative
+    await page.evaluate(() => {
+      const main = document.querySelector('main') ?? document.body;
+      main.insertAdjacentHTML('beforeend', '<button id="bare-button"><svg width="10" height="10"></svg></button><img id="bare-image" src="/favicon.svg">');
+    });
+    const found = await seriousViolations(page);
+    expect(found.some((v) => v.includes('button-name') && v.includes('#bare-button'))).toBe(true);
+    expect(found.some((v) => v.includes('image-alt') && v.includes('#bare-image'))).toBe(true);
+    await expect(expectAccessible(page)).rejects.toThrow(/button-name/);
   });
 
   it('answers GET /api/health with { ok: true }', async () => {

@@ -7,6 +7,7 @@ import zlib from 'node:zlib';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, newContext } from './support/browser';
+import { expectAccessible } from './support/axe';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -43,10 +44,12 @@ function noisyPng(width: number, height: number): Buffer {
 
 async function signIn(page: Page, email: string) {
   await page.goto('/sign-in');
+  await expectAccessible(page);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('mullion-demo-2026');
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((url) => url.pathname.startsWith('/app'));
+  await expectAccessible(page);
 }
 
 async function apiCall<T>(page: Page, method: string, url: string, body?: unknown): Promise<T> {
@@ -92,6 +95,7 @@ describe('a technician’s visit on a phone', () => {
     const tech = await phone.newPage();
     await signIn(tech, 'priya@lanternfield.example');
     await tech.goto('/app/today');
+    await expectAccessible(tech);
     const card = tech.getByRole('button', { name: new RegExp(summary) });
     await expect.poll(() => card.isVisible()).toBe(true);
     if ((await card.getAttribute('aria-expanded')) !== 'true') await card.click();
@@ -102,6 +106,7 @@ describe('a technician’s visit on a phone', () => {
     await expect.poll(() => article.getByRole('checkbox', { name: 'Read the panel’s trouble and alarm memory' }).isChecked()).toBe(true);
     await article.getByRole('link', { name: /Open the job/ }).click();
     await tech.waitForURL(`**/app/jobs/${job.id}**`);
+    await expectAccessible(tech);
 
     // Completing before the walk test is refused with the reason.
     await tech.getByRole('button', { name: 'Complete job' }).first().click();
@@ -133,6 +138,7 @@ describe('a technician’s visit on a phone', () => {
 
     // The coordinator sees it in the site's service history.
     await coordinator.goto(`/app/sites/${site.id}`);
+    await expectAccessible(coordinator);
     await expect.poll(() => coordinator.getByText(summary).first().isVisible()).toBe(true);
 
     await Promise.all([office.close(), phone.close()]);
