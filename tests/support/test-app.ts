@@ -9,11 +9,13 @@ import type { Express } from 'express';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@server/app';
+import { createBackgroundTasks } from '@server/background-tasks';
 import { createSecretBox } from '@server/crypto/secret-box';
 import type { AppDeps } from '@server/deps';
 import { migrate } from '@server/db/migrator';
 import { createSequelize } from '@server/db/sequelize';
 import { createMemoryMailer, type MailMessage } from '@server/emails/mailer';
+import { createMailOutbox } from '@server/emails/outbox-sender';
 import { createLogger } from '@server/logger';
 import { initModels } from '@server/models/index';
 import { TenantFiles } from '@server/storage/tenant-files';
@@ -21,7 +23,13 @@ import { TenantFiles } from '@server/storage/tenant-files';
 export interface TestApp {
   app: Express;
   sequelize: Sequelize;
+  /** what the memory mailer received */
   outbox: MailMessage[];
+  /**
+   * Waits for work requests started without waiting (password resets), then sends every
+   * outbox message that is due. Other routes deliver their mail before answering.
+   */
+  flushMail(): Promise<void>;
   tenantsDir: string;
   clock: { now: Date };
   close(): Promise<void>;
@@ -35,11 +43,15 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<T
   const mailer = createMemoryMailer();
   const tenantsDir = path.join(dir, 'tenants');
   const clock = { now: new Date() };
+  const logger = createLogger('silent');
+  const outbox = createMailOutbox({ mailer, logger, messageIdDomain: 'mullion.test', now: () => clock.now });
+  const background = createBackgroundTasks(logger);
   const { app, close } = createApp({
     sequelize,
-    mailer,
+    outbox,
+    background,
     files: new TenantFiles(tenantsDir),
-    logger: createLogger('silent'),
+    logger,
     appUrl: 'http://mullion.test',
     sessionSecret: 'test-session-secret-that-is-long-enough-123',
     secrets: createSecretBox('test-data-encryption-key-that-is-long-enough'),
@@ -52,10 +64,16 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<T
     app,
     sequelize,
     outbox: mailer.outbox,
+    async flushMail() {
+      await background.idle();
+      await outbox.drain();
+    },
     tenantsDir,
     clock,
     async close() {
       close();
+      await background.idle();
+      await outbox.stop();
       await sequelize.close();
       fs.rmSync(dir, { recursive: true, force: true });
     },
