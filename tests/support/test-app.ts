@@ -14,7 +14,7 @@ import { createSecretBox } from '@server/crypto/secret-box';
 import type { AppDeps } from '@server/deps';
 import { migrate } from '@server/db/migrator';
 import { createSequelize } from '@server/db/sequelize';
-import { createMemoryMailer, type MailMessage } from '@server/emails/mailer';
+import { createMemoryMailer, type Mailer, type MailMessage } from '@server/emails/mailer';
 import { createMailOutbox } from '@server/emails/outbox-sender';
 import { createLogger } from '@server/logger';
 import { initModels } from '@server/models/index';
@@ -35,17 +35,20 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Partial<AppDeps> = {},
+  options: { mailer?: Mailer & { outbox: MailMessage[] } } = {},
+): Promise<TestApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-test-'));
   const sequelize = createSequelize({ url: `sqlite:${path.join(dir, 'test.sqlite')}` });
   initModels(sequelize);
   await migrate(sequelize);
-  const mailer = createMemoryMailer();
+  const mailer = options.mailer ?? createMemoryMailer();
   const tenantsDir = path.join(dir, 'tenants');
   const clock = { now: new Date() };
   const logger = createLogger('silent');
   const outbox = createMailOutbox({ mailer, logger, messageIdDomain: 'mullion.test', now: () => clock.now });
-  const background = createBackgroundTasks(logger);
+  const background = overrides.background ?? createBackgroundTasks(logger);
   const { app, close } = createApp({
     sequelize,
     outbox,
@@ -59,6 +62,7 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<T
     rateLimits: { signIn: { limit: 1000, windowMs: 60_000 }, passwordReset: { limit: 1000, windowMs: 60_000 } },
     now: () => clock.now,
     ...overrides,
+    background,
   });
   return {
     app,
