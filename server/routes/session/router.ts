@@ -65,7 +65,7 @@ export function sessionRouter(
     res.status(201).json({ data: presentSession(owner, nowOf(deps)) });
   });
 
-  router.post('/password-resets', tools.resetLimiter, validate({ body: passwordResetRequestSchema }), async (req, res) => {
+  router.post('/password-resets', tools.resetLimiter, validate({ body: passwordResetRequestSchema }), (req, res) => {
     const { body } = inputOf(req, { body: passwordResetRequestSchema });
     // Answered before any lookup: the same body at the same speed for every address.
     const now = nowOf(deps);
