@@ -52,7 +52,6 @@ export async function createTestApp(
   const { app, close } = createApp({
     sequelize,
     outbox,
-    background,
     files: new TenantFiles(tenantsDir),
     logger,
     appUrl: 'http://mullion.test',
