@@ -69,3 +69,20 @@ describe('service requests from one household', () => {
     expect((await w.post(`/api/portal/sites/${g.site.id}/service-requests`, { description: 'A door sensor.', preferredTimes: 'Any' })).status).toBe(201);
   });
 });
+
+describe('emergency-contact changes from one household', () => {
+  it('ten saves an hour; the eleventh is 429 and changes nothing', async () => {
+    const f = await buildFirmWithSite();
+    const v = await signedIn(f.clientUser);
+    const save = (i: number) => v.put(`/api/portal/sites/${f.site.id}/contacts`, { contacts: [{ name: `Neighbour ${i}`, relation: 'Neighbour', phone: '+15550104500' }] });
+    for (let i = 1; i <= 10; i++) expect((await save(i)).status, `save ${i}`).toBe(200);
+    const refused = await save(11);
+    expect(refused.status).toBe(429);
+    expect(refused.body.error.code).toBe('rate_limited');
+    expect(refused.body.error.message).toMatch(/emergency contacts/);
+    expect(mailsTo(f.owner.email)).toHaveLength(10);
+    const list = await v.get(`/api/portal/sites/${f.site.id}/contacts`);
+    expect(JSON.stringify(list.body)).toContain('Neighbour 10');
+    expect(JSON.stringify(list.body)).not.toContain('Neighbour 11');
+  });
+});
