@@ -25,6 +25,12 @@ export function scoped<W extends object>(ctx: Ctx, where?: W): W & { tenantId: s
   return { ...(where ?? ({} as W)), tenantId: requireTenantId(ctx) };
 }
 
+/** The transaction a service must run in (mail is queued in it); a missing one is a programming error. */
+export function requireTransaction(ctx: Ctx): Transaction {
+  if (!ctx.transaction) throw new Error('This operation must run in a transaction (inTransaction).');
+  return ctx.transaction;
+}
+
 export function withTransaction(ctx: Ctx, transaction: Transaction): Ctx {
   return { ...ctx, transaction };
 }

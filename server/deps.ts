@@ -1,7 +1,8 @@
 import type { Sequelize } from 'sequelize';
 import type { BillingConfig } from './billing/config';
 import type { SecretBox } from './crypto/secret-box';
-import type { Mailer } from './emails/mailer';
+import type { BackgroundTasks } from './background-tasks';
+import type { MailOutbox } from './emails/outbox';
 import type { Logger } from './logger';
 import type { Thumbnailer } from './services/thumbnails';
 import type { TenantFiles } from './storage/tenant-files';
@@ -9,7 +10,10 @@ import type { TenantFiles } from './storage/tenant-files';
 /** What the app is built from; tests pass their own (memory mailer, temp folders, clock). */
 export interface AppDeps {
   sequelize: Sequelize;
-  mailer: Mailer;
+  /** every e-mail goes through the outbox (server/emails/outbox.ts), never straight to a mailer */
+  outbox: MailOutbox;
+  /** work a request starts without waiting for it (password-reset e-mails) */
+  background: BackgroundTasks;
   files: TenantFiles;
   /** makes photo thumbnails in worker threads; createApp starts its own pool when none is given */
   thumbnails: Thumbnailer;

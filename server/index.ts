@@ -6,6 +6,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createApp } from './app';
+import { createBackgroundTasks } from './background-tasks';
 import type { BillingConfig } from './billing/config';
 import { createSecretBox } from './crypto/secret-box';
 import type { Env } from './config/env';
@@ -13,6 +14,7 @@ import { migrate } from './db/migrator';
 import { createSequelize } from './db/sequelize';
 import { createSmtpMailer, type Mailer } from './emails/mailer';
 import { backupScheduleFor } from './jobs/backup-schedule';
+import { createMailOutbox, type OutboxSenderOptions } from './emails/outbox-sender';
 import { createLogger, type Logger } from './logger';
 import { initModels } from './models/index';
 import { TenantFiles } from './storage/tenant-files';
@@ -35,15 +37,26 @@ export async function openDatabase(env: Env): Promise<Sequelize> {
 
 export async function startServer(
   env: Env,
-  options: { mailer?: Mailer; serveClient?: string; sequelize?: Sequelize; host?: string; billing?: BillingConfig } = {},
+  options: {
+    mailer?: Mailer;
+    serveClient?: string;
+    sequelize?: Sequelize;
+    host?: string;
+    billing?: BillingConfig;
+    /** retry tuning for the outbox sender (the crash test shortens the claim lease) */
+    outbox?: Pick<OutboxSenderOptions, 'claimLeaseMs' | 'pollMs' | 'maxAttempts'>;
+  } = {},
 ): Promise<RunningServer> {
   const logger = createLogger(env.logLevel);
   const sequelize = options.sequelize ?? (await openDatabase(env));
   if (!env.smtpUrl && !options.mailer) throw new Error('SMTP_URL is not set and no mailer was given.');
   const mailer = options.mailer ?? createSmtpMailer(env.smtpUrl!, env.mailFrom);
+  const outbox = createMailOutbox({ mailer, logger, messageIdDomain: new URL(env.appUrl).hostname, ...options.outbox });
+  const background = createBackgroundTasks(logger);
   const { app, close: closeApp } = createApp({
     sequelize,
-    mailer,
+    outbox,
+    background,
     files: new TenantFiles(path.resolve(env.tenantsDir)),
     logger,
     appUrl: env.appUrl,
@@ -59,6 +72,8 @@ export async function startServer(
   const backups = backupScheduleFor(env, logger);
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : env.port;
+  // Sends what a previous run left pending (a crash, a relay that was down), then retries on a timer.
+  outbox.start();
   return {
     server,
     port,
@@ -74,8 +89,11 @@ export async function startServer(
       await Promise.race([closed, grace]);
       server.closeAllConnections();
       await closed;
-      // requests are done: stop the session store's timer and end the thumbnail workers
+      // requests are done: stop the session store's timer and end the thumbnail workers;
+      // work started by requests, then sends in flight, finish before the database closes.
       await closeApp();
+      await background.idle();
+      await outbox.stop();
       await sequelize.close();
     },
   };

@@ -16,6 +16,11 @@ export interface MailMessage {
   html: string;
   /** optional files; the memory mailer keeps them so tests can read them */
   attachments?: MailAttachment[];
+  /**
+   * Set by the outbox sender from the message's key: a retried message keeps its
+   * Message-ID, so the recipient's mail system can tell a repeat from a new message.
+   */
+  messageId?: string;
 }
 
 export interface Mailer {

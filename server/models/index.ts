@@ -7,6 +7,7 @@ import { Floor } from './Floor';
 import { Invitation } from './Invitation';
 import { Job } from './Job';
 import { Opening } from './Opening';
+import { OutboxMessage } from './OutboxMessage';
 import { Panel } from './Panel';
 import { PasswordReset } from './PasswordReset';
 import { Room } from './Room';
@@ -21,11 +22,11 @@ import { Zone } from './Zone';
 import { ZoneChange } from './ZoneChange';
 import { guardIncludes } from './base/tenant-guard';
 
-export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, WalkTest, Zone, ZoneChange, StripeEvent, SubscriptionChange };
+export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, WalkTest, Zone, ZoneChange, StripeEvent, SubscriptionChange, OutboxMessage };
 
 /** Binds every model to this database and wires the associations. */
 export function initModels(sequelize: Sequelize): void {
-  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest, StripeEvent, SubscriptionChange];
+  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest, StripeEvent, SubscriptionChange, OutboxMessage];
   for (const model of models) model.initModel(sequelize);
 
   Tenant.hasMany(User, { foreignKey: 'tenantId', as: 'users' });

@@ -6,10 +6,12 @@ import type { AcceptInvitationInput } from '@domain/schemas/auth';
 import { abilityUserOf } from '../auth/ability-user';
 import { hashPassword } from '../auth/passwords';
 import { hashToken, newToken } from '../auth/tokens';
-import { scoped, type Ctx } from '../context';
+import { requireTenantId, requireTransaction, scoped, type Ctx } from '../context';
 import type { AppDeps } from '../deps';
 import { readableAccent } from '@domain/colour';
 import { portalPath } from '@domain/short-name';
+import { assertMailAllowed } from '../emails/mail-limits';
+import type { MailMessage } from '../emails/mailer';
 import { invitationEmail, portalInvitationEmail } from '../emails/templates';
 import { errors } from '../errors';
 import { Invitation } from '../models/Invitation';
@@ -20,10 +22,19 @@ import { assertWithinPlan } from './plan-limits';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
-type MailDeps = Pick<AppDeps, 'mailer' | 'appUrl' | 'files'>;
+type MailDeps = Pick<AppDeps, 'outbox' | 'appUrl' | 'files'>;
 
-async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ctx, deps: MailDeps): Promise<void> {
+/** Queues the invitation e-mail in the caller's transaction; each fresh link is its own message. */
+async function queueInvitationMail(invitation: Invitation, token: string, tokenHash: string, ctx: Ctx, deps: MailDeps): Promise<void> {
   const tenant = ctx.tenant;
+  const queue = (message: MailMessage) =>
+    deps.outbox.enqueue(requireTransaction(ctx), {
+      key: `invitation:${invitation.id}:${tokenHash.slice(0, 24)}`,
+      purpose: 'invitation',
+      tenantId: invitation.tenantId,
+      actorId: ctx.user?.id ?? null,
+      message,
+    });
   if (invitation.role === 'client' && tenant) {
     // A homeowner's invitation opens the firm's own portal, in the firm's colours, with its logo.
     const logo =
@@ -33,7 +44,7 @@ async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ct
             .then((content) => ({ content, contentType: tenant.logoContentType! }))
             .catch(() => null)
         : null;
-    await deps.mailer.send(
+    await queue(
       portalInvitationEmail({
         to: invitation.email,
         firmName: tenant.name,
@@ -46,7 +57,7 @@ async function sendInvitationMail(invitation: Invitation, token: string, ctx: Ct
     );
     return;
   }
-  await deps.mailer.send(
+  await queue(
     invitationEmail({
       to: invitation.email,
       firmName: tenant?.name ?? 'Your alarm firm',
@@ -70,6 +81,7 @@ export async function inviteToFirm(
 ): Promise<Invitation> {
   const taken = await User.count({ where: { email: input.email }, crossTenant: true, transaction: ctx.transaction });
   if (taken > 0) throw errors.emailTaken();
+  await assertMailAllowed(ctx.transaction, { purpose: 'invitation', tenantId: requireTenantId(ctx), actorId: ctx.user?.id ?? null, recipients: [input.email] });
   // A staff invitation holds a seat from the moment it is sent (one replacing a pending one to the same address does not add one).
   if (input.role !== 'client') {
     const replacing = await Invitation.count({
@@ -97,13 +109,14 @@ export async function inviteToFirm(
     { transaction: ctx.transaction },
   );
   await recordAudit(ctx, { action: 'invitation.sent', subjectType: 'Invitation', subjectId: invitation.id, details: { email: input.email, role: input.role } });
-  await sendInvitationMail(invitation, token, ctx, deps);
+  await queueInvitationMail(invitation, token, tokenHash, ctx, deps);
   return invitation;
 }
 
 /** Sends a pending invitation again with a fresh link and a fresh expiry; the old link stops working. */
 export async function resendInvitation(ctx: Ctx, invitation: Invitation, deps: MailDeps & { now: Date }): Promise<Invitation> {
   if (invitation.acceptedAt) throw errors.conflict('This invitation was already accepted.');
+  await assertMailAllowed(ctx.transaction, { purpose: 'invitation', tenantId: invitation.tenantId, actorId: ctx.user?.id ?? null, recipients: [invitation.email] });
   // A withdrawn or expired staff invitation holds no seat; sending it again takes one.
   const heldSeat = !invitation.revokedAt && invitation.expiresAt.getTime() > deps.now.getTime();
   if (invitation.role !== 'client' && !heldSeat) await assertWithinPlan(ctx, 'seat', deps.now);
@@ -113,7 +126,7 @@ export async function resendInvitation(ctx: Ctx, invitation: Invitation, deps: M
     { transaction: ctx.transaction },
   );
   await recordAudit(ctx, { action: 'invitation.resent', subjectType: 'Invitation', subjectId: invitation.id, details: { email: invitation.email } });
-  await sendInvitationMail(invitation, token, ctx, deps);
+  await queueInvitationMail(invitation, token, tokenHash, ctx, deps);
   return invitation;
 }
 

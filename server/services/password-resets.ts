@@ -11,26 +11,41 @@ import { PasswordReset } from '../models/PasswordReset';
 import { User } from '../models/User';
 import { AuditEvent } from '../models/AuditEvent';
 import { endSessionsOf } from './sessions';
+import { PASSWORD_RESET_MAILS_PER_ADDRESS, recentPasswordResetMailTo } from '../emails/mail-limits';
 
 const MINUTE_MS = 60 * 1000;
 
-/** Sends a reset link when the address has an active sign-in; says nothing either way. */
-export async function requestPasswordReset(email: string, deps: Pick<AppDeps, 'mailer' | 'appUrl' | 'logger'> & { now: Date }): Promise<void> {
+/**
+ * Makes a reset token and queues the link when the address has an active sign-in; does
+ * nothing otherwise. The route runs this in the background and answers at once, so neither
+ * the answer nor its timing says whether the address has an account.
+ */
+export async function requestPasswordReset(
+  email: string,
+  deps: Pick<AppDeps, 'sequelize' | 'outbox' | 'appUrl' | 'logger'> & { now: Date },
+): Promise<void> {
   const user = await User.findOne({ where: { email }, crossTenant: true });
   if (!user || user.deactivatedAt) return;
-  const { token, tokenHash } = newToken();
-  await PasswordReset.create({
-    tenantId: user.tenantId,
-    userId: user.id,
-    tokenHash,
-    expiresAt: new Date(deps.now.getTime() + LIMITS.passwordResetMinutes * MINUTE_MS),
-  });
+  if ((await recentPasswordResetMailTo(user.email)) >= PASSWORD_RESET_MAILS_PER_ADDRESS.limit) {
+    deps.logger.warn('Password-reset e-mail not made: the address had its allowance', { userId: user.id });
+    return;
+  }
   // A homeowner resets from (and returns to) their firm's portal.
   const firm = user.role === 'client' && user.tenantId ? await Tenant.findByPk(user.tenantId) : null;
   const base = firm ? `${deps.appUrl}${portalPath(firm.shortName)}` : deps.appUrl;
-  await deps.mailer.send(
-    passwordResetEmail({ to: user.email, name: user.name, link: `${base}/reset-password/${token}`, minutes: LIMITS.passwordResetMinutes }),
-  );
+  await deps.sequelize.transaction(async (transaction) => {
+    const { token, tokenHash } = newToken();
+    const reset = await PasswordReset.create(
+      { tenantId: user.tenantId, userId: user.id, tokenHash, expiresAt: new Date(deps.now.getTime() + LIMITS.passwordResetMinutes * MINUTE_MS) },
+      { transaction },
+    );
+    await deps.outbox.enqueue(transaction, {
+      key: `password-reset:${reset.id}`,
+      purpose: 'password_reset',
+      tenantId: user.tenantId,
+      message: passwordResetEmail({ to: user.email, name: user.name, link: `${base}/reset-password/${token}`, minutes: LIMITS.passwordResetMinutes }),
+    });
+  });
 }
 
 /** Sets a new password with a single-use, unexpired token and ends the user's other sessions. */

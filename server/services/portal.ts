@@ -4,11 +4,13 @@
  * household's change to its emergency contacts is e-mailed to the owner and coordinators,
  * who confirm it with the monitoring center.
  */
+import { randomUUID } from 'node:crypto';
 import type { ServiceRequestInput } from '@domain/schemas/portal';
 import { Op } from 'sequelize';
 import { contactListsDiffer, describeListChange } from '@domain/contact-changes';
-import { type Ctx, scoped } from '../context';
+import { type Ctx, requireTransaction, scoped } from '../context';
 import type { AppDeps } from '../deps';
+import { assertMailAllowed } from '../emails/mail-limits';
 import { householdContactsChangedEmail } from '../emails/templates';
 import { errors } from '../errors';
 import { Client } from '../models/Client';
@@ -30,9 +32,20 @@ export async function requestService(
   ctx: Ctx,
   site: Site,
   input: ServiceRequestInput,
-  deps: Pick<AppDeps, 'mailer' | 'appUrl'>,
+  deps: Pick<AppDeps, 'outbox' | 'appUrl'>,
 ): Promise<Job> {
-  const options = { transaction: ctx.transaction ?? null };
+  const transaction = requireTransaction(ctx);
+  const options = { transaction };
+  const coordinators = await User.findAll({
+    where: scoped(ctx, { role: 'coordinator', deactivatedAt: { [Op.is]: null } }),
+    ...options,
+  });
+  await assertMailAllowed(transaction, {
+    purpose: 'service_request',
+    tenantId: site.tenantId,
+    actorId: ctx.user?.id ?? null,
+    recipients: coordinators.map((c) => c.email),
+  });
   let zone: Zone | null = null;
   if (input.zoneId) {
     zone = await Zone.findOne({ where: scoped(ctx, { id: input.zoneId, siteId: site.id }), ...options });
@@ -61,10 +74,6 @@ export async function requestService(
   );
   await recordAudit(ctx, { action: 'job.requested_by_client', subjectType: 'Job', subjectId: job.id, details: { siteId: site.id } });
 
-  const coordinators = await User.findAll({
-    where: scoped(ctx, { role: 'coordinator', deactivatedAt: { [Op.is]: null } }),
-    ...options,
-  });
   const who = ctx.user?.name ?? 'A client';
   const subject = `Service request from ${who} — ${site.name}`;
   const link = `${deps.appUrl}/app/jobs/${job.id}`;
@@ -74,11 +83,17 @@ export async function requestService(
       `What they wrote: ${input.description.trim()}`,
       `Preferred times: ${input.preferredTimes.trim()}`,
     ];
-    await deps.mailer.send({
-      to: coordinator.email,
-      subject,
-      text: `${lines.join('\n\n')}\n\nOpen the job: ${link}\n`,
-      html: `${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}<p><a href="${escapeHtml(link)}">Open the job</a></p>`,
+    await deps.outbox.enqueue(transaction, {
+      key: `service-request:${job.id}:${coordinator.id}`,
+      purpose: 'service_request',
+      tenantId: site.tenantId,
+      actorId: ctx.user?.id ?? null,
+      message: {
+        to: coordinator.email,
+        subject,
+        text: `${lines.join('\n\n')}\n\nOpen the job: ${link}\n`,
+        html: `${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}<p><a href="${escapeHtml(link)}">Open the job</a></p>`,
+      },
     });
   }
   return job;
@@ -93,23 +108,39 @@ export async function changeHouseholdContacts(
   ctx: Ctx,
   site: Site,
   list: ContactList,
-  deps: Pick<AppDeps, 'mailer' | 'appUrl'>,
+  deps: Pick<AppDeps, 'outbox' | 'appUrl'>,
 ): Promise<EmergencyContact[]> {
-  const { contacts, before, after } = await replaceContactList(ctx, site, list);
-  if (ctx.user?.role !== 'client' || !contactListsDiffer(before, after)) return contacts;
-
-  const options = { transaction: ctx.transaction ?? null };
-  const client = await Client.findOne({ where: scoped(ctx, { id: site.clientId }), attributes: ['id', 'name'], ...options });
+  const transaction = requireTransaction(ctx);
+  const options = { transaction };
   const recipients = await User.findAll({
     where: scoped(ctx, { role: { [Op.in]: ['owner', 'coordinator'] }, deactivatedAt: { [Op.is]: null } }),
     ...options,
   });
+  // A household's every save may e-mail the office, so every save counts towards the limit.
+  if (ctx.user?.role === 'client') {
+    await assertMailAllowed(transaction, {
+      purpose: 'contacts_changed',
+      tenantId: site.tenantId,
+      actorId: ctx.user.id,
+      recipients: recipients.map((r) => r.email),
+    });
+  }
+  const { contacts, before, after } = await replaceContactList(ctx, site, list);
+  if (ctx.user?.role !== 'client' || !contactListsDiffer(before, after)) return contacts;
+
+  const client = await Client.findOne({ where: scoped(ctx, { id: site.clientId }), attributes: ['id', 'name'], ...options });
   const householdName = client?.name ?? ctx.user.name;
   const summary = describeListChange(before, after);
   const link = `${deps.appUrl}/app/sites/${site.id}`;
+  // Each save that changes the list is its own message to each recipient.
+  const changeId = randomUUID();
   for (const recipient of recipients) {
-    await deps.mailer.send(
-      householdContactsChangedEmail({
+    await deps.outbox.enqueue(transaction, {
+      key: `contacts-changed:${site.id}:${changeId}:${recipient.id}`,
+      purpose: 'contacts_changed',
+      tenantId: site.tenantId,
+      actorId: ctx.user.id,
+      message: householdContactsChangedEmail({
         to: recipient.email,
         householdName,
         siteName: site.name,
@@ -120,7 +151,7 @@ export async function changeHouseholdContacts(
         monitoringCenterPhone: ctx.tenant?.monitoringCenterPhone ?? '',
         link,
       }),
-    );
+    });
   }
   return contacts;
 }

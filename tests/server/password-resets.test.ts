@@ -30,6 +30,7 @@ async function requestReset(email: string): Promise<string> {
   const v = await visitor(t.app);
   const res = await v.post('/api/password-resets', { email });
   expect(res.status).toBe(202);
+  await t.flushMail();
   const link = linkFromMail(t.outbox, email, '/reset-password/');
   return `/api/password-resets/${link.split('/').pop()!}`;
 }
@@ -40,6 +41,7 @@ describe('POST /api/password-resets', () => {
     const v = await visitor(t.app);
     const res = await v.post('/api/password-resets', { email: technician.email.toUpperCase() });
     expect(res.status).toBe(202);
+    await t.flushMail();
     const mails = mailsTo(technician.email);
     expect(mails).toHaveLength(1);
     expect(mails[0]!.text).toMatch(/http:\/\/mullion\.test\/reset-password\/[A-Za-z0-9_-]{20,}/);
@@ -58,6 +60,7 @@ describe('POST /api/password-resets', () => {
     expect(unknown.status).toBe(202);
     expect(known.status).toBe(202);
     expect(unknown.body).toEqual(known.body);
+    await t.flushMail();
     expect(mailsTo('nobody-here@test.example')).toHaveLength(0);
     expect(t.outbox.length).toBe(before + 1);
   });
@@ -67,6 +70,7 @@ describe('POST /api/password-resets', () => {
     const gone = await buildUser(firm, 'technician', { deactivatedAt: new Date() });
     const v = await visitor(t.app);
     expect((await v.post('/api/password-resets', { email: gone.email })).status).toBe(202);
+    await t.flushMail();
     expect(mailsTo(gone.email)).toHaveLength(0);
   });
 

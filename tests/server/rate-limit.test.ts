@@ -61,6 +61,7 @@ describe('password reset requests', () => {
     const third = await v.post('/api/password-resets', { email: technician.email });
     expect(third.status).toBe(429);
     expect(third.body.error.code).toBe('rate_limited');
+    await t.flushMail();
     expect(t.outbox.filter((m) => m.to === technician.email)).toHaveLength(2);
   });
 

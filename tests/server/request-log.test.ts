@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { createLogger } from '@server/logger';
-import type { Mailer } from '@server/emails/mailer';
+import type { MailOutbox } from '@server/emails/outbox';
 import { loggablePath, requestIdFrom } from '@server/middlewares/request-log';
 import { createTestApp, linkFromMail, visitor, type TestApp } from '../support/test-app';
 import { buildFirmWithSite, buildUser, TEST_PASSWORD } from '../support/factories';
@@ -156,6 +156,7 @@ describe('secrets never reach a line', () => {
     const user = await buildUser((await buildFirmWithSite()).firm, 'technician');
     const v = await visitor(t.app);
     expect((await v.post('/api/password-resets', { email: user.email })).status).toBe(202);
+    await t.flushMail();
     const link = linkFromMail(t.outbox, user.email, 'reset-password');
     const token = link.split('/').pop() ?? '';
     expect(token.length).toBeGreaterThan(30);
@@ -202,9 +203,14 @@ describe('a 500', () => {
   const brokenLog = captureLog();
 
   beforeAll(async () => {
-    // a mail relay that is down: sending a reset link throws inside the route
-    const failingMailer: Mailer = { send: () => Promise.reject(new Error('SMTP relay refused the connection')) };
-    broken = await createTestApp({ logger: brokenLog.logger, mailer: failingMailer });
+    // an outbox whose table cannot be written: inviting staff throws inside the route
+    const failingOutbox: MailOutbox = {
+      enqueue: () => Promise.reject(new Error('outbox table refused the row')),
+      drain: () => Promise.resolve(),
+      start: () => undefined,
+      stop: () => Promise.resolve(),
+    };
+    broken = await createTestApp({ logger: brokenLog.logger, outbox: failingOutbox });
   });
   afterAll(async () => {
     await broken.close();
@@ -213,8 +219,9 @@ describe('a 500', () => {
   it('answers, heads and logs the same request id', async () => {
     const user = await buildUser((await buildFirmWithSite()).firm, 'owner');
     const v = await visitor(broken.app);
+    expect((await v.signIn(user.email, TEST_PASSWORD)).status).toBe(200);
     brokenLog.clear();
-    const res = await v.post('/api/password-resets', { email: user.email });
+    const res = await v.post('/api/staff/invitations', { email: 'new.hand@firm.example', role: 'technician' });
     expect(res.status).toBe(500);
     const id = res.headers['x-request-id'];
     expect(id).toMatch(UUID);
@@ -222,8 +229,8 @@ describe('a 500', () => {
 
     const lines = brokenLog.lines().filter((l) => l.requestId === id);
     const failure = lines.find((l) => l.msg === 'Unhandled error');
-    expect(failure).toMatchObject({ level: 'error', path: '/api/password-resets' });
-    expect(JSON.stringify(failure?.err)).toContain('SMTP relay refused the connection');
+    expect(failure).toMatchObject({ level: 'error', path: '/api/staff/invitations' });
+    expect(JSON.stringify(failure?.err)).toContain('outbox table refused the row');
     expect(lines.filter((l) => l.msg === 'request')).toEqual([expect.objectContaining({ level: 'error', status: 500 })]);
     expect(brokenLog.lines().filter((l) => l.level === 'error').every((l) => l.requestId === id)).toBe(true);
   });

@@ -9,11 +9,13 @@ import type { Express } from 'express';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@server/app';
+import { createBackgroundTasks } from '@server/background-tasks';
 import { createSecretBox } from '@server/crypto/secret-box';
 import type { AppDeps } from '@server/deps';
 import { migrate } from '@server/db/migrator';
 import { createSequelize } from '@server/db/sequelize';
-import { createMemoryMailer, type MailMessage } from '@server/emails/mailer';
+import { createMemoryMailer, type Mailer, type MailMessage } from '@server/emails/mailer';
+import { createMailOutbox } from '@server/emails/outbox-sender';
 import { createLogger } from '@server/logger';
 import { initModels } from '@server/models/index';
 import { TenantFiles } from '@server/storage/tenant-files';
@@ -21,25 +23,37 @@ import { TenantFiles } from '@server/storage/tenant-files';
 export interface TestApp {
   app: Express;
   sequelize: Sequelize;
+  /** what the memory mailer received */
   outbox: MailMessage[];
+  /**
+   * Waits for work requests started without waiting (password resets), then sends every
+   * outbox message that is due. Other routes deliver their mail before answering.
+   */
+  flushMail(): Promise<void>;
   tenantsDir: string;
   clock: { now: Date };
   close(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Partial<AppDeps> = {},
+  options: { mailer?: Mailer & { outbox: MailMessage[] } } = {},
+): Promise<TestApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-test-'));
   const sequelize = createSequelize({ url: `sqlite:${path.join(dir, 'test.sqlite')}` });
   initModels(sequelize);
   await migrate(sequelize);
-  const mailer = createMemoryMailer();
+  const mailer = options.mailer ?? createMemoryMailer();
   const tenantsDir = path.join(dir, 'tenants');
   const clock = { now: new Date() };
+  const logger = createLogger('silent');
+  const outbox = createMailOutbox({ mailer, logger, messageIdDomain: 'mullion.test', now: () => clock.now });
+  const background = overrides.background ?? createBackgroundTasks(logger);
   const { app, close } = createApp({
     sequelize,
-    mailer,
+    outbox,
     files: new TenantFiles(tenantsDir),
-    logger: createLogger('silent'),
+    logger,
     appUrl: 'http://mullion.test',
     sessionSecret: 'test-session-secret-that-is-long-enough-123',
     secrets: createSecretBox('test-data-encryption-key-that-is-long-enough'),
@@ -47,15 +61,22 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<T
     rateLimits: { signIn: { limit: 1000, windowMs: 60_000 }, passwordReset: { limit: 1000, windowMs: 60_000 } },
     now: () => clock.now,
     ...overrides,
+    background,
   });
   return {
     app,
     sequelize,
     outbox: mailer.outbox,
+    async flushMail() {
+      await background.idle();
+      await outbox.drain();
+    },
     tenantsDir,
     clock,
     async close() {
       await close(); // the session store's timer and the thumbnail workers
+      await background.idle();
+      await outbox.stop();
       await sequelize.close();
       fs.rmSync(dir, { recursive: true, force: true });
     },

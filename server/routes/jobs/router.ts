@@ -4,8 +4,9 @@ import { subject } from '@domain/abilities';
 import { JOB_KIND_LABELS } from '@domain/jobs';
 import { DOCUMENT_MAX_BYTES } from '@domain/schemas/document';
 import { jobCreateSchema, jobListQuery, jobPatchSchema, walkTestSchema } from '@domain/schemas/job';
-import { scoped } from '../../context';
+import { requireTenantId, requireTransaction, scoped, type Ctx } from '../../context';
 import type { AppDeps } from '../../deps';
+import { assertMailAllowed } from '../../emails/mail-limits';
 import { jobCompletionEmail } from '../../emails/templates';
 import { errors } from '../../errors';
 import { singleUpload } from '../../middlewares/upload';
@@ -73,6 +74,28 @@ export function jobsRouter(deps: AppDeps): Router {
     return job;
   }
 
+  /** The report goes to the household in the completion's own transaction (the PDF travels in the outbox row). */
+  async function queueCompletionMail(ctx: Ctx, job: Job, report: ProducedReport): Promise<void> {
+    const transaction = requireTransaction(ctx);
+    await assertMailAllowed(transaction, { purpose: 'job_completed', tenantId: job.tenantId, actorId: null, recipients: [report.clientEmail] });
+    await deps.outbox.enqueue(transaction, {
+      key: `job-completed:${job.id}:${job.reportFileId ?? ''}`,
+      purpose: 'job_completed',
+      tenantId: job.tenantId,
+      actorId: ctx.user?.id ?? null,
+      message: jobCompletionEmail({
+        to: report.clientEmail,
+        firmName: ctx.tenant?.name ?? '',
+        siteName: report.siteName,
+        jobKindLabel: JOB_KIND_LABELS[job.kind],
+        summary: job.summary,
+        completedOn: report.completedOn,
+        technicianName: report.technicianName,
+        report: { filename: report.filename, content: report.pdf },
+      }),
+    });
+  }
+
   async function present(req: Request, job: Job) {
     const views = await jobViews(req.ctx, [job]);
     return presentJob(job, views, { audience: 'staff' });
@@ -137,43 +160,31 @@ export function jobsRouter(deps: AppDeps): Router {
     }
     const now = nowOf(deps);
     const stored: string[] = [];
-    let report: ProducedReport | null = null;
     let job: Job;
     try {
       job = await inTransaction(req, deps, async (ctx) => {
-        const outcome = await transitionJob(ctx, loaded.id, body, now);
+        const tenantId = requireTenantId(ctx);
         if (body.to === 'completed') {
-          report = await produceCompletionReport(
-            ctx,
-            deps.files,
-            outcome.job,
-            {
-              now,
-              batteryChanges: outcome.batteryZones.map((z) => ({ zoneNumber: z.number, description: z.description, changedOn: outcome.batteryChangedOn ?? '' })),
-            },
-            stored,
-          );
+          await assertMailAllowed(ctx.transaction, { purpose: 'job_completed', tenantId, actorId: ctx.user?.id ?? null, recipients: [] });
         }
+        const outcome = await transitionJob(ctx, loaded.id, body, now);
+        if (body.to !== 'completed') return outcome.job;
+        const report = await produceCompletionReport(
+          ctx,
+          deps.files,
+          outcome.job,
+          {
+            now,
+            batteryChanges: outcome.batteryZones.map((z) => ({ zoneNumber: z.number, description: z.description, changedOn: outcome.batteryChangedOn ?? '' })),
+          },
+          stored,
+        );
+        if (report.clientEmail) await queueCompletionMail(ctx, outcome.job, report);
         return outcome.job;
       });
     } catch (e) {
       await removeStored(deps.files, loaded.tenantId, stored);
       throw e;
-    }
-    const produced = report as ProducedReport | null;
-    if (produced?.clientEmail) {
-      const message = jobCompletionEmail({
-        to: produced.clientEmail,
-        firmName: req.ctx.tenant?.name ?? '',
-        siteName: produced.siteName,
-        jobKindLabel: JOB_KIND_LABELS[job.kind],
-        summary: job.summary,
-        completedOn: produced.completedOn,
-        technicianName: produced.technicianName,
-        report: { filename: produced.filename, content: produced.pdf },
-      });
-      // the job is completed and the report kept whatever the mail relay says
-      await deps.mailer.send(message).catch((err: unknown) => deps.logger.warn('Completion e-mail not sent', { jobId: job.id, err }));
     }
     res.json({ data: await present(req, job) });
   });
