@@ -17,8 +17,9 @@ const schema = z
     APP_URL: z.url().optional(),
     DATABASE_URL: z
       .string()
-      .refine((v) => v.startsWith('sqlite:') || v.startsWith('postgres://') || v.startsWith('postgresql://'), {
-        message: 'DATABASE_URL is sqlite:<path> or postgres://…',
+      // Only SQLite is built and tested today; a postgres:// URL would fail later, so refuse it now.
+      .refine((v) => v.startsWith('sqlite:'), {
+        message: 'DATABASE_URL is sqlite:<path>; this version of Mullion runs on SQLite only.',
       })
       .optional(),
     SESSION_SECRET: z.string().min(32, 'SESSION_SECRET needs at least 32 characters.').optional(),

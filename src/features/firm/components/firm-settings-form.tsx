@@ -64,7 +64,7 @@ export function FirmSettingsForm({ firm }: { firm: ApiFirm }) {
           <FormField label="Licence number" error={e.licenceNumber?.message} hint="Your state or local alarm licence, printed on certificates.">
             <Input {...register('licenceNumber')} />
           </FormField>
-          <FormField label="Time zone" error={e.timeZone?.message} hint="Visits and reminders are shown in this zone unless a site has its own.">
+          <FormField label="Time zone" error={e.timeZone?.message} hint="Visits are shown in this zone unless a site has its own.">
             <Select {...register('timeZone')}>
               {zones.map((z) => (
                 <option key={z} value={z}>
