@@ -40,6 +40,11 @@ export async function startServer(
   const sequelize = options.sequelize ?? (await openDatabase(env));
   if (!env.smtpUrl && !options.mailer) throw new Error('SMTP_URL is not set and no mailer was given.');
   const mailer = options.mailer ?? createSmtpMailer(env.smtpUrl!, env.mailFrom);
+  if (env.isProduction && env.trustProxy === false) {
+    logger.warn(
+      'TRUST_PROXY is not set: every request is counted under the address that connects to Mullion. Behind a reverse proxy or load balancer, set TRUST_PROXY to the number of proxy hops (usually 1).',
+    );
+  }
   const { app, close: closeApp } = createApp({
     sequelize,
     mailer,
@@ -49,6 +54,7 @@ export async function startServer(
     sessionSecret: env.sessionSecret,
     secrets: createSecretBox(env.dataEncryptionKey),
     secureCookies: env.isProduction,
+    trustProxy: env.trustProxy,
     serveClient: options.serveClient,
     billing: options.billing,
   });

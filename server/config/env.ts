@@ -2,10 +2,50 @@
  * The only reader of process.env. Checked with zod at start; a bad value stops the server
  * with a readable list of what is wrong.
  */
+import { isIP } from 'node:net';
 import { z } from 'zod';
 
 const DEV_SESSION_SECRET = 'mullion-development-session-secret-not-for-production';
 const DEV_DATA_KEY = 'mullion-development-data-key-not-for-production';
+
+/** Express's names for address ranges it understands in `trust proxy`. */
+const PROXY_RANGE_NAMES = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+/**
+ * Which proxies in front of Mullion may tell it the visitor's address through
+ * X-Forwarded-For. Unset: none, so a forged header cannot change the address that sign-in
+ * limits count. A number is the count of proxy hops (1 for one load balancer or reverse
+ * proxy); a comma-separated list names the proxies' addresses or subnets.
+ */
+export type TrustProxy = false | number | string[];
+
+function parseTrustProxy(raw: string | undefined, ctx: z.RefinementCtx): TrustProxy {
+  const value = (raw ?? '').trim().toLowerCase();
+  if (value === '' || value === 'false' || value === '0') return false;
+  if (/^\d+$/.test(value)) return Number(value);
+  if (value === 'true') {
+    ctx.addIssue({
+      code: 'custom',
+      message: 'TRUST_PROXY=true would believe any X-Forwarded-For header, so anyone could reset sign-in limits. Set the number of proxies in front of Mullion (usually 1) or their addresses.',
+    });
+    return false;
+  }
+  const parts = value.split(',').map((p) => p.trim()).filter(Boolean);
+  const bad = parts.filter((p) => {
+    if (PROXY_RANGE_NAMES.has(p)) return false;
+    const [address, bits, extra] = p.split('/');
+    if (extra !== undefined || !address || isIP(address) === 0) return true;
+    return bits !== undefined && !/^\d{1,3}$/.test(bits);
+  });
+  if (bad.length > 0 || parts.length === 0) {
+    ctx.addIssue({
+      code: 'custom',
+      message: `TRUST_PROXY is a number of proxy hops (e.g. 1) or a comma-separated list of proxy addresses or subnets (e.g. 10.0.0.0/8, loopback); not understood: ${bad.join(', ') || value}.`,
+    });
+    return false;
+  }
+  return parts;
+}
 
 const schema = z
   .object({
@@ -28,6 +68,7 @@ const schema = z
     /** the Stripe API base, only to point the SDK at a stand-in in another container (http://stripe:12111) */
     STRIPE_API_BASE: z.url().optional(),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
+    TRUST_PROXY: z.string().optional().transform(parseTrustProxy),
   })
   .superRefine((v, ctx) => {
     if (v.NODE_ENV === 'production') {
@@ -54,6 +95,8 @@ export interface Env {
   stripeWebhookSecret: string | undefined;
   stripeApiBase: string | undefined;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+  /** Express `trust proxy`: false (the default) trusts no X-Forwarded-For */
+  trustProxy: TrustProxy;
 }
 
 export function readEnv(source: Record<string, string | undefined> = process.env): Env {
@@ -79,5 +122,6 @@ export function readEnv(source: Record<string, string | undefined> = process.env
     stripeWebhookSecret: v.STRIPE_WEBHOOK_SECRET || undefined,
     stripeApiBase: v.STRIPE_API_BASE || undefined,
     logLevel: v.LOG_LEVEL,
+    trustProxy: v.TRUST_PROXY,
   };
 }

@@ -17,4 +17,6 @@ export const LIMITS = {
   logoTypes: ['image/png', 'image/jpeg', 'image/webp'] as readonly string[],
   invitationDays: 7,
   passwordResetMinutes: 60,
+  /** how long the link that confirms a sign-up works */
+  signUpConfirmationHours: 24,
 } as const;

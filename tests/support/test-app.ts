@@ -27,6 +27,17 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
+/** Limits high enough never to stop a test; a test of a limit passes its own small numbers (the rest stay high). */
+const RELAXED_LIMITS: NonNullable<AppDeps['rateLimits']> = {
+  signIn: { limit: 1000, windowMs: 60_000 },
+  signInPerIp: { limit: 1000, windowMs: 60_000 },
+  signInPerAccount: { limit: 1000, windowMs: 60_000 },
+  passwordReset: { limit: 1000, windowMs: 60_000 },
+  signUpPerIp: { limit: 1000, windowMs: 60_000 },
+  signUpPerAddress: { limit: 1000, windowMs: 60_000 },
+  invitationsPerUser: { limit: 1000, windowMs: 60_000 },
+};
+
 export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<TestApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'mullion-test-'));
   const sequelize = createSequelize({ url: `sqlite:${path.join(dir, 'test.sqlite')}` });
@@ -44,9 +55,9 @@ export async function createTestApp(overrides: Partial<AppDeps> = {}): Promise<T
     sessionSecret: 'test-session-secret-that-is-long-enough-123',
     secrets: createSecretBox('test-data-encryption-key-that-is-long-enough'),
     secureCookies: false,
-    rateLimits: { signIn: { limit: 1000, windowMs: 60_000 }, passwordReset: { limit: 1000, windowMs: 60_000 } },
     now: () => clock.now,
     ...overrides,
+    rateLimits: { ...RELAXED_LIMITS, ...overrides.rateLimits },
   });
   return {
     app,

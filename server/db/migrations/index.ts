@@ -12,6 +12,7 @@ import * as m20261202000000 from './20261202000000-firm-phone';
 import * as m20261202010000 from './20261202010000-billing';
 import * as m20261202020000 from './20261202020000-pending-checkout';
 import * as m20261205000000 from './20261205000000-life-safety-rules';
+import * as m20261212000000 from './20261212000000-signup-requests';
 
 export interface Migration {
   name: string;
@@ -29,4 +30,5 @@ export const MIGRATIONS: Migration[] = [
   { name: '20261202010000-billing', ...m20261202010000 },
   { name: '20261202020000-pending-checkout', ...m20261202020000 },
   { name: '20261205000000-life-safety-rules', ...m20261205000000 },
+  { name: '20261212000000-signup-requests', ...m20261212000000 },
 ];
