@@ -127,15 +127,20 @@ export async function revokeInvitation(ctx: Ctx, invitation: Invitation, now: Da
 
 /** The inviter's answer for an address already signed in at their own firm. */
 function alreadyAtFirm(member: User) {
-  const where = member.role === 'client' ? 'has a sign-in to your client portal' : 'is already on your staff';
-  return errors.conflict(`${member.email} ${where}. Invite another address, or manage them from the ${member.role === 'client' ? 'client' : 'staff'} page.`, {
-    email: member.role === 'client' ? 'This address already has a portal sign-in at your firm.' : 'This address is already on your staff.',
-  });
+  const client = member.role === 'client';
+  return errors.emailTaken(
+    'email',
+    client
+      ? `${member.email} already has a sign-in to your client portal. Invite another address, or find them on the client's page.`
+      : `${member.email} is already on your staff. Invite another address, or change their role on the staff page.`,
+    client ? 'This address already has a portal sign-in at your firm.' : 'This address is already on your staff.',
+  );
 }
 
 /** The invitee's answer when their address already has a sign-in (at another firm, or since invited here). */
 export function addressHasSignIn(email: string, firmName: string) {
-  return errors.conflict(
+  return errors.emailTaken(
+    null,
     `${email} already has a Mullion sign-in, and one address is one sign-in, so it cannot also join ${firmName}. Sign in with it as usual, or ask ${firmName} to invite another of your addresses.`,
   );
 }

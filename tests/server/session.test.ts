@@ -76,7 +76,9 @@ describe('POST /api/signup', () => {
     expect(res.status).toBe(202);
     expect(fresh.status).toBe(202);
     // Same shape, same words; only the address differs.
-    expect(res.body.data.message.replace(owner.email, 'X')).toBe(fresh.body.data.message.replace('nobody-yet@another.example', 'X'));
+    const said = (res.body as { data: { message: string } }).data.message;
+    const saidFresh = (fresh.body as { data: { message: string } }).data.message;
+    expect(said.replace(owner.email, 'X')).toBe(saidFresh.replace('nobody-yet@another.example', 'X'));
     expect(Object.keys(res.body.data)).toEqual(Object.keys(fresh.body.data));
     expect(res.body).not.toHaveProperty('error');
     expect(await Tenant.count()).toBe(before);
