@@ -9,7 +9,7 @@ import { createPassport } from './auth/passport';
 import type { AppDeps } from './deps';
 import { createCsrf } from './middlewares/csrf';
 import { apiNotFound, errorHandler } from './middlewares/error-handler';
-import { createAttemptLimiter } from './middlewares/rate-limit';
+import { createAttemptLimiter, createInvitationLimiter, createSignInLimiters, createSignUpLimiters } from './middlewares/rate-limit';
 import { requestLog } from './middlewares/request-log';
 import { sessionGuard } from './middlewares/session-guard';
 import { createThumbnailPool, type Thumbnailer } from './services/thumbnails';
@@ -53,7 +53,9 @@ export function createApp(input: AppInput): CreatedApp {
   const deps: AppDeps = { ...input, thumbnails: input.thumbnails ?? createThumbnailPool() };
   const app = express();
   app.disable('x-powered-by');
-  if (deps.secureCookies) app.set('trust proxy', 1);
+  // Only TRUST_PROXY decides whether X-Forwarded-For is believed (default: not at all), so
+  // a forged header cannot change the address that attempt limits count.
+  app.set('trust proxy', deps.trustProxy ?? false);
 
   // First: every request gets an id (echoed in X-Request-Id) and one log line when it ends.
   app.use(requestLog(deps.logger));
@@ -128,13 +130,30 @@ export function createApp(input: AppInput): CreatedApp {
   app.use('/api', sessionGuard);
   app.use('/api', readOnlyGuard(deps));
 
-  const signInLimiter = createAttemptLimiter(deps.rateLimits?.signIn ?? { limit: 10, windowMs: 15 * 60 * 1000 });
-  const resetLimiter = createAttemptLimiter(deps.rateLimits?.passwordReset ?? { limit: 5, windowMs: 15 * 60 * 1000 });
+  // Attempt limits. No published source fixes these numbers: they are common practice for a
+  // small-firm service, chosen so a person who mistypes is never stopped while a script is.
+  // NIST SP 800-63B §5.2.2 asks that consecutive failed sign-ins to one account be limited to
+  // at most 100; the per-address limit below allows 100 failures a day and is cleared by the
+  // right password or a password reset.
+  const MINUTE = 60 * 1000;
+  const HOUR = 60 * MINUTE;
+  const limits = deps.rateLimits ?? {};
+  const signIn = createSignInLimiters({
+    perAddressFromIp: limits.signIn ?? { limit: 10, windowMs: 15 * MINUTE },
+    perIp: limits.signInPerIp ?? { limit: 30, windowMs: 15 * MINUTE },
+    perAccount: limits.signInPerAccount ?? { limit: 100, windowMs: 24 * HOUR },
+  });
+  const resetLimiter = createAttemptLimiter(limits.passwordReset ?? { limit: 5, windowMs: 15 * MINUTE });
+  const signUpLimiters = createSignUpLimiters({
+    perIp: limits.signUpPerIp ?? { limit: 10, windowMs: HOUR },
+    perAddress: limits.signUpPerAddress ?? { limit: 3, windowMs: HOUR },
+  });
+  const invitationLimiter = createInvitationLimiter(limits.invitationsPerUser ?? { limit: 60, windowMs: HOUR });
 
-  app.use('/api', sessionRouter(deps, { passport, csrf, signInLimiter, resetLimiter }));
+  app.use('/api', sessionRouter(deps, { passport, csrf, signIn, resetLimiter, signUpLimiters }));
   app.use('/api', invitationsRouter(deps));
   app.use('/api', publicFirmsRouter(deps));
-  app.use('/api', staffRouter(deps));
+  app.use('/api', staffRouter(deps, { invitationLimiter }));
   app.use('/api', upkeepSettingsRouter(deps));
   app.use('/api', checklistTemplatesRouter(deps));
   app.use('/api', firmRouter(deps));
@@ -142,7 +161,7 @@ export function createApp(input: AppInput): CreatedApp {
   app.use('/api', firmBusinessRouter(deps));
   app.use('/api', operatorRouter(deps));
   app.use('/api', operatorRevenueRouter(deps));
-  app.use('/api', clientInvitationsRouter(deps));
+  app.use('/api', clientInvitationsRouter(deps, { invitationLimiter }));
   app.use('/api', portalRouter(deps));
   app.use('/api', clientsRouter(deps));
   app.use('/api', sitesRouter(deps));

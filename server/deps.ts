@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import type { TrustProxy } from './config/env';
 import type { BillingConfig } from './billing/config';
 import type { SecretBox } from './crypto/secret-box';
 import type { BackgroundTasks } from './background-tasks';
@@ -6,6 +7,21 @@ import type { MailOutbox } from './emails/outbox';
 import type { Logger } from './logger';
 import type { Thumbnailer } from './services/thumbnails';
 import type { TenantFiles } from './storage/tenant-files';
+
+export type RateLimitName =
+  /** sign-in attempts for one address from one network address */
+  | 'signIn'
+  /** failed sign-ins from one network address, whatever the address typed */
+  | 'signInPerIp'
+  /** failed sign-ins to one address, from anywhere */
+  | 'signInPerAccount'
+  | 'passwordReset'
+  /** sign-up requests from one network address */
+  | 'signUpPerIp'
+  /** sign-up requests naming one e-mail address */
+  | 'signUpPerAddress'
+  /** staff and client invitations (new and sent again) by one signed-in person */
+  | 'invitationsPerUser';
 
 /** What the app is built from; tests pass their own (memory mailer, temp folders, clock). */
 export interface AppDeps {
@@ -24,7 +40,10 @@ export interface AppDeps {
   secrets: SecretBox;
   secureCookies: boolean;
   serveClient?: string | undefined;
-  rateLimits?: { signIn?: { limit: number; windowMs: number }; passwordReset?: { limit: number; windowMs: number } };
+  /** Express `trust proxy` (TRUST_PROXY); unset or false: X-Forwarded-For is ignored */
+  trustProxy?: TrustProxy;
+  /** attempts per window; tests pass small numbers, the app has defaults (server/app.ts) */
+  rateLimits?: Partial<Record<RateLimitName, { limit: number; windowMs: number }>>;
   now?: () => Date;
   /** Stripe (or the local stand-in); without it the billing routes answer 503 */
   billing?: BillingConfig | undefined;

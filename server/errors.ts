@@ -27,10 +27,11 @@ export const errors = {
   forbidden: (message = 'Your role does not allow this.') => make('forbidden', message),
   notFound: (what = 'record') => make('not_found', `No such ${what}.`),
   conflict: (message: string, fields?: Record<string, string>) => make('conflict', message, fields),
-  emailTaken: (field = 'email') =>
-    make('email_taken', 'That e-mail address already has a Mullion account. Sign in, or use another address.', {
-      [field]: 'This e-mail address is already in use.',
-    }),
+  emailTaken: (
+    field: string | null = 'email',
+    message = 'That e-mail address already has a Mullion account. Sign in, or use another address.',
+    fieldMessage = 'This e-mail address is already in use.',
+  ) => make('email_taken', message, field ? { [field]: fieldMessage } : undefined),
   firmSuspended: () =>
     make('firm_suspended', 'This firm’s Mullion account is suspended. The firm owner can contact the Mullion operator.'),
   userDeactivated: () =>

@@ -53,6 +53,11 @@ export async function startServer(
   const mailer = options.mailer ?? createSmtpMailer(env.smtpUrl!, env.mailFrom);
   const outbox = createMailOutbox({ mailer, logger, messageIdDomain: new URL(env.appUrl).hostname, ...options.outbox });
   const background = createBackgroundTasks(logger);
+  if (env.isProduction && env.trustProxy === false) {
+    logger.warn(
+      'TRUST_PROXY is not set: every request is counted under the address that connects to Mullion. Behind a reverse proxy or load balancer, set TRUST_PROXY to the number of proxy hops (usually 1).',
+    );
+  }
   const { app, close: closeApp } = createApp({
     sequelize,
     outbox,
@@ -63,6 +68,7 @@ export async function startServer(
     sessionSecret: env.sessionSecret,
     secrets: createSecretBox(env.dataEncryptionKey),
     secureCookies: env.isProduction,
+    trustProxy: env.trustProxy,
     serveClient: options.serveClient,
     billing: options.billing,
   });

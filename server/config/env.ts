@@ -2,6 +2,7 @@
  * The only reader of process.env. Checked with zod at start; a bad value stops the server
  * with a readable list of what is wrong.
  */
+import { isIP } from 'node:net';
 import { z } from 'zod';
 
 const DEV_SESSION_SECRET = 'mullion-development-session-secret-not-for-production';
@@ -9,6 +10,44 @@ const DEV_DATA_KEY = 'mullion-development-data-key-not-for-production';
 
 /** `NAME=` in a .env file means "not set", never 0. */
 const blankAsUnset = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
+/** Express's names for address ranges it understands in `trust proxy`. */
+const PROXY_RANGE_NAMES = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+/**
+ * Which proxies in front of Mullion may tell it the visitor's address through
+ * X-Forwarded-For. Unset: none, so a forged header cannot change the address that sign-in
+ * limits count. A number is the count of proxy hops (1 for one load balancer or reverse
+ * proxy); a comma-separated list names the proxies' addresses or subnets.
+ */
+export type TrustProxy = false | number | string[];
+
+function parseTrustProxy(raw: string | undefined, ctx: z.RefinementCtx): TrustProxy {
+  const value = (raw ?? '').trim().toLowerCase();
+  if (value === '' || value === 'false' || value === '0') return false;
+  if (/^\d+$/.test(value)) return Number(value);
+  if (value === 'true') {
+    ctx.addIssue({
+      code: 'custom',
+      message: 'TRUST_PROXY=true would believe any X-Forwarded-For header, so anyone could reset sign-in limits. Set the number of proxies in front of Mullion (usually 1) or their addresses.',
+    });
+    return false;
+  }
+  const parts = value.split(',').map((p) => p.trim()).filter(Boolean);
+  const bad = parts.filter((p) => {
+    if (PROXY_RANGE_NAMES.has(p)) return false;
+    const [address, bits, extra] = p.split('/');
+    if (extra !== undefined || !address || isIP(address) === 0) return true;
+    return bits !== undefined && !/^\d{1,3}$/.test(bits);
+  });
+  if (bad.length > 0 || parts.length === 0) {
+    ctx.addIssue({
+      code: 'custom',
+      message: `TRUST_PROXY is a number of proxy hops (e.g. 1) or a comma-separated list of proxy addresses or subnets (e.g. 10.0.0.0/8, loopback); not understood: ${bad.join(', ') || value}.`,
+    });
+    return false;
+  }
+  return parts;
+}
 
 const schema = z
   .object({
@@ -38,6 +77,7 @@ const schema = z
     BACKUP_KEEP_DAYS: z.preprocess(blankAsUnset, z.coerce.number().int().min(1, 'BACKUP_KEEP_DAYS is at least 1.').max(3650).default(14)),
     /** hours between scheduled backups in the server process; 0 = none; unset = 24 (0 when NODE_ENV=test) */
     BACKUP_INTERVAL_HOURS: z.preprocess(blankAsUnset, z.coerce.number().min(0).max(24 * 24, 'BACKUP_INTERVAL_HOURS is at most 576 (24 days).').optional()),
+    TRUST_PROXY: z.string().optional().transform(parseTrustProxy),
   })
   .superRefine((v, ctx) => {
     if (v.NODE_ENV === 'production') {
@@ -68,6 +108,8 @@ export interface Env {
   backupKeepDays: number;
   /** 0 = no scheduled backups */
   backupIntervalHours: number;
+  /** Express `trust proxy`: false (the default) trusts no X-Forwarded-For */
+  trustProxy: TrustProxy;
 }
 
 export function readEnv(source: Record<string, string | undefined> = process.env): Env {
@@ -96,5 +138,6 @@ export function readEnv(source: Record<string, string | undefined> = process.env
     backupDir: v.BACKUP_DIR || './data/backups',
     backupKeepDays: v.BACKUP_KEEP_DAYS,
     backupIntervalHours: v.BACKUP_INTERVAL_HOURS ?? (v.NODE_ENV === 'test' ? 0 : 24),
+    trustProxy: v.TRUST_PROXY,
   };
 }

@@ -30,7 +30,8 @@ interface PurposeLimits {
   what: string;
 }
 
-export const MAIL_LIMITS: Record<Exclude<MailPurpose, 'password_reset'>, PurposeLimits> = {
+/** Sign-up e-mails are bounded by the sign-up request limits (middlewares/rate-limit.ts), not here: no firm or user exists yet to count against. */
+export const MAIL_LIMITS: Record<Exclude<MailPurpose, 'password_reset' | 'sign_up'>, PurposeLimits> = {
   invitation: {
     actions: ['invitation.sent', 'invitation.resent'],
     perUser: { limit: 50, windowMs: HOUR_MS },

@@ -10,7 +10,7 @@ import { OutboxMessage, type StoredAttachment } from '../models/OutboxMessage';
 import type { MailAttachment, MailMessage } from './mailer';
 
 /** Why a message is sent; limits (mail-limits.ts) count per purpose. */
-export type MailPurpose = 'password_reset' | 'invitation' | 'service_request' | 'contacts_changed' | 'job_completed';
+export type MailPurpose = 'password_reset' | 'sign_up' | 'invitation' | 'service_request' | 'contacts_changed' | 'job_completed';
 
 export interface OutgoingMail {
   /**

@@ -108,6 +108,45 @@ export function passwordResetEmail(input: { to: string; name: string; link: stri
   };
 }
 
+/** Sent to a new address after sign-up: the link that confirms it and starts the firm's trial. */
+export function signUpConfirmationEmail(input: { to: string; name: string; firmName: string; link: string; hours: number; trialDays: number }): MailMessage {
+  const subject = `Finish setting up ${input.firmName} on Mullion`;
+  const lines = [
+    `Hello ${input.name},`,
+    `Confirm this address to start ${input.firmName}'s ${input.trialDays}-day trial. You will be signed in as the firm's owner with the password you chose, and can invite your office and technicians straight away.`,
+    `The link works once and expires in ${input.hours} hours.`,
+  ];
+  const footer = 'Not expecting this? Ignore this e-mail; no firm is set up without you.';
+  return {
+    to: input.to,
+    subject,
+    text: `${lines.join('\n\n')}\n\nFinish setting up my firm: ${input.link}\n\n${footer}\n`,
+    html: layout(subject, lines, { label: 'Finish setting up my firm', href: input.link }, footer),
+  };
+}
+
+/**
+ * Sent instead of a confirmation when someone signs up with an address that already has a
+ * Mullion sign-in: only the address's owner learns that, never the person on the sign-up page.
+ */
+export function signUpAccountExistsEmail(input: { to: string; name: string; signInLink: string; resetLink: string }): MailMessage {
+  const subject = 'You already have a Mullion sign-in';
+  const lines = [
+    `Hello ${input.name},`,
+    'Someone, probably you, asked to start a new firm on Mullion with this address. This address already has a Mullion sign-in, and one address is one sign-in, so no new firm was set up.',
+    `Sign in: ${input.signInLink}`,
+    `Forgotten your password? Choose a new one: ${input.resetLink}`,
+    'To start a separate firm, sign up again with another address.',
+  ];
+  const footer = 'If it was not you, ignore this e-mail: nothing has changed.';
+  return {
+    to: input.to,
+    subject,
+    text: `${lines.join('\n\n')}\n\n${footer}\n`,
+    html: layout(subject, lines, { label: 'Sign in', href: input.signInLink }, footer),
+  };
+}
+
 /**
  * The completion report of a job, e-mailed to the client with the PDF attached: what was
  * done, when, and who to call. Only client-visible facts (never internal notes).

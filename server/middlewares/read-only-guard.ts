@@ -6,7 +6,7 @@ import { readOnlyOf } from '../presenters/billing';
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /** Writes a read-only firm may still make: signing in and out, and sorting out billing. */
-const ALWAYS_ALLOWED = [/^\/session$/, /^\/billing(\/|$)/, /^\/password-resets(\/|$)/];
+const ALWAYS_ALLOWED = [/^\/session$/, /^\/signups?(\/|$)/, /^\/billing(\/|$)/, /^\/password-resets(\/|$)/];
 
 /**
  * A firm whose trial ended without a plan, or that is past due beyond the grace period, or

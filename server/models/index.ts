@@ -12,6 +12,7 @@ import { Panel } from './Panel';
 import { PasswordReset } from './PasswordReset';
 import { Room } from './Room';
 import { Session } from './Session';
+import { SignupRequest } from './SignupRequest';
 import { Site } from './Site';
 import { Tenant } from './Tenant';
 import { StripeEvent } from './StripeEvent';
@@ -22,11 +23,11 @@ import { Zone } from './Zone';
 import { ZoneChange } from './ZoneChange';
 import { guardIncludes } from './base/tenant-guard';
 
-export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, Site, Tenant, User, WalkTest, Zone, ZoneChange, StripeEvent, SubscriptionChange, OutboxMessage };
+export { AuditEvent, Client, Document, EmergencyContact, Floor, Invitation, Job, Opening, Panel, PasswordReset, Room, Session, SignupRequest, Site, Tenant, User, WalkTest, Zone, ZoneChange, StripeEvent, SubscriptionChange, OutboxMessage };
 
 /** Binds every model to this database and wires the associations. */
 export function initModels(sequelize: Sequelize): void {
-  const models = [Tenant, User, Invitation, PasswordReset, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest, StripeEvent, SubscriptionChange, OutboxMessage];
+  const models = [Tenant, User, Invitation, PasswordReset, SignupRequest, AuditEvent, Session, Client, Site, EmergencyContact, Document, Panel, Zone, ZoneChange, Floor, Room, Opening, Job, WalkTest, StripeEvent, SubscriptionChange, OutboxMessage];
   for (const model of models) model.initModel(sequelize);
 
   Tenant.hasMany(User, { foreignKey: 'tenantId', as: 'users' });

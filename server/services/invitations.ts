@@ -70,17 +70,19 @@ async function queueInvitationMail(invitation: Invitation, token: string, tokenH
 }
 
 /**
- * Invites a person to the acting user's firm. Refuses an address that already has a
- * sign-in (one person, one sign-in across the service) and replaces any pending invitation
- * to the same address.
+ * Invites a person to the acting user's firm and replaces any pending invitation to the
+ * same address. An address that already has a sign-in at this firm is refused (that is the
+ * firm's own data). An address with a sign-in elsewhere is invited exactly like a new one,
+ * so the inviter learns nothing about other firms; the invitee is told at the link that the
+ * address cannot join (one person, one sign-in across the service).
  */
 export async function inviteToFirm(
   ctx: Ctx,
   input: { email: string; role: Role; clientId?: string | null },
   deps: MailDeps & { now: Date },
 ): Promise<Invitation> {
-  const taken = await User.count({ where: { email: input.email }, crossTenant: true, transaction: ctx.transaction });
-  if (taken > 0) throw errors.emailTaken();
+  const member = await User.findOne({ where: scoped(ctx, { email: input.email }), transaction: ctx.transaction });
+  if (member) throw alreadyAtFirm(member);
   await assertMailAllowed(ctx.transaction, { purpose: 'invitation', tenantId: requireTenantId(ctx), actorId: ctx.user?.id ?? null, recipients: [input.email] });
   // A staff invitation holds a seat from the moment it is sent (one replacing a pending one to the same address does not add one).
   if (input.role !== 'client') {
@@ -136,6 +138,26 @@ export async function revokeInvitation(ctx: Ctx, invitation: Invitation, now: Da
   await recordAudit(ctx, { action: 'invitation.revoked', subjectType: 'Invitation', subjectId: invitation.id, details: { email: invitation.email } });
 }
 
+/** The inviter's answer for an address already signed in at their own firm. */
+function alreadyAtFirm(member: User) {
+  const client = member.role === 'client';
+  return errors.emailTaken(
+    'email',
+    client
+      ? `${member.email} already has a sign-in to your client portal. Invite another address, or find them on the client's page.`
+      : `${member.email} is already on your staff. Invite another address, or change their role on the staff page.`,
+    client ? 'This address already has a portal sign-in at your firm.' : 'This address is already on your staff.',
+  );
+}
+
+/** The invitee's answer when their address already has a sign-in (at another firm, or since invited here). */
+export function addressHasSignIn(email: string, firmName: string) {
+  return errors.emailTaken(
+    null,
+    `${email} already has a Mullion sign-in, and one address is one sign-in, so it cannot also join ${firmName}. Sign in with it as usual, or ask ${firmName} to invite another of your addresses.`,
+  );
+}
+
 const UNUSABLE = 'This invitation link is no longer valid. Ask the firm to send a new one.';
 
 /** Finds a usable invitation by its token (deliberately cross-firm: the token is the key). */
@@ -170,7 +192,7 @@ export async function acceptInvitation(
     );
     if (claimed !== 1) throw notUsable();
     const taken = await User.count({ where: { email: invitation.email }, crossTenant: true, transaction });
-    if (taken > 0) throw errors.emailTaken();
+    if (taken > 0) throw addressHasSignIn(invitation.email, tenant.name);
     if (invitation.role === 'client' && !invitation.clientId) throw notUsable();
     const user = await User.create(
       {

@@ -48,14 +48,17 @@ export async function requestPasswordReset(
   });
 }
 
-/** Sets a new password with a single-use, unexpired token and ends the user's other sessions. */
+/**
+ * Sets a new password with a single-use, unexpired token and ends the user's other
+ * sessions. Answers the user's e-mail address.
+ */
 export async function completePasswordReset(
   token: string,
   password: string,
   deps: Pick<AppDeps, 'sequelize'> & { now: Date; ip?: string },
-): Promise<void> {
+): Promise<string> {
   const passwordHash = await hashPassword(password);
-  await deps.sequelize.transaction(async (transaction) => {
+  return deps.sequelize.transaction(async (transaction) => {
     const reset = await PasswordReset.findOne({ where: { tokenHash: hashToken(token) }, transaction });
     const [claimed] = reset
       ? await PasswordReset.update(
@@ -76,5 +79,6 @@ export async function completePasswordReset(
       { tenantId: user.tenantId, actorId: user.id, actorRole: user.role, action: 'password.reset', subjectType: 'User', subjectId: user.id, details: null, ip: deps.ip ?? null },
       { transaction },
     );
+    return user.email;
   });
 }

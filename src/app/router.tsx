@@ -82,6 +82,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { index: true, ...page(() => import('./routes/public/landing')) },
             { path: paths.pricing, ...page(() => import('./routes/public/pricing')) },
             { path: paths.signUp, loader: guarded(signedOutOnly), ...page(() => import('./routes/public/sign-up')) },
+            { path: paths.confirmSignUp(), ...page(() => import('./routes/public/confirm-sign-up')) },
             { path: paths.signIn, loader: guarded(signedOutOnly), ...page(() => import('./routes/public/sign-in')) },
             { path: paths.forgotPassword, ...page(() => import('./routes/public/forgot-password')) },
             { path: paths.resetPassword(), ...page(() => import('./routes/public/reset-password')) },

@@ -3,6 +3,8 @@ export const paths = {
   home: '/',
   pricing: '/pricing',
   signUp: '/sign-up',
+  /** the link e-mailed at sign-up: confirms the address and creates the firm */
+  confirmSignUp: (token = ':token') => `/sign-up/confirm/${token}`,
   signIn: '/sign-in',
   forgotPassword: '/forgot-password',
   resetPassword: (token = ':token') => `/reset-password/${token}`,

@@ -24,4 +24,6 @@ export const LIMITS = {
   imageMaxPixels: 40_000_000,
   invitationDays: 7,
   passwordResetMinutes: 60,
+  /** how long the link that confirms a sign-up works */
+  signUpConfirmationHours: 24,
 } as const;

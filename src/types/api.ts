@@ -81,6 +81,18 @@ export interface InvitationPreview {
   role: Role;
   roleLabel: string;
   expiresAt: string;
+  /** the address already has a Mullion sign-in, so it cannot accept (one address, one sign-in) */
+  hasSignIn: boolean;
+  /** what the invitee reads instead of the form when hasSignIn */
+  notice?: string;
+}
+
+/** A sign-up waiting for its address to be confirmed (GET /api/signups/:token). */
+export interface SignUpPreview {
+  firmName: string;
+  name: string;
+  email: string;
+  expiresAt: string;
 }
 
 export interface OperatorTenant {

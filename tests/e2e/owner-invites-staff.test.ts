@@ -1,5 +1,6 @@
 /**
- * Journeys 1 and 3 in a real browser: a firm owner signs up, picks a plan and pays on the
+ * Journeys 1 and 3 in a real browser: a firm owner signs up and confirms the address from the
+ * e-mailed link, picks a plan and pays on the
  * (stand-in) Stripe checkout page, comes back to an active firm and invites a technician, who
  * accepts the e-mailed invitation on a phone and sees only what a technician may; the
  * operator suspends the firm, and the technician's next page load is refused.
@@ -34,7 +35,17 @@ describe('owner signs up and invites a technician; operator suspends the firm', 
     await owner.getByLabel('Your name').fill('Orla Beech');
     await owner.getByLabel('Work e-mail').fill(ownerEmail);
     await owner.getByLabel('Password').fill('copper beech hedge 42');
+    const signedUpAt = new Date(Date.now() - 1000);
     await owner.getByRole('button', { name: 'Create my firm' }).click();
+    await expect
+      .poll(() => owner.getByRole('status').innerText(), { timeout: 10_000 })
+      .toContain(`Check your inbox at ${ownerEmail} for a link to finish setting up your firm.`);
+    // The confirmation link arrives by e-mail; opening it and pressing the button starts the trial.
+    const confirmation = await latestMailTo(mailUrl(), ownerEmail, { after: signedUpAt });
+    expect(confirmation.subject).toBe(`Finish setting up ${firmName} on Mullion`);
+    await owner.goto(linkIn(confirmation, '/sign-up/confirm/'));
+    await expect.poll(() => owner.getByRole('heading', { name: `Finish setting up ${firmName}` }).isVisible()).toBe(true);
+    await owner.getByRole('button', { name: 'Start my trial' }).click();
     await owner.waitForURL('**/app');
     await expectAccessible(owner);
     await expect.poll(() => owner.getByText(firmName).first().isVisible()).toBe(true);

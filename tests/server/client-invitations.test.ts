@@ -93,12 +93,23 @@ describe('client invitations', () => {
     expect(inv!.revokedAt).not.toBeNull();
   });
 
-  it('an e-mail that already has a sign-in → 409 email_taken', async () => {
+  it('an e-mail with a sign-in at this firm → 409 email_taken naming the field', async () => {
     const f = await buildFirmWithSite();
     const coord = await signedIn(f.coordinator);
     const res = await coord.post(`/api/clients/${f.client.id}/invitations`, { email: f.technician.email });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('email_taken');
+    expect(res.body.error.fields).toHaveProperty('email');
+  });
+
+  it('an e-mail with a sign-in at another firm is invited like any other (201, the portal invitation e-mail)', async () => {
+    const f = await buildFirmWithSite();
+    const other = await buildFirmWithStaff();
+    const coord = await signedIn(f.coordinator);
+    const res = await coord.post(`/api/clients/${f.client.id}/invitations`, { email: other.owner.email });
+    expect(res.status).toBe(201);
+    expect(res.body.data).toMatchObject({ email: other.owner.email, clientId: f.client.id });
+    expect(t.outbox.filter((m) => m.to === other.owner.email)).toHaveLength(1);
   });
 
   it('bad e-mail → 400 naming email; another firm’s client or an unknown id → 404', async () => {

@@ -186,6 +186,34 @@ describe('POST /api/invitations/:token/accept', () => {
     expect(await User.count({ where: { tenantId: firm.id, email } })).toBe(0);
   });
 
+  it('explains to the invitee, at the link, that an address with a sign-in at another firm cannot join; nothing is created', async () => {
+    const other = await buildFirmWithStaff();
+    const staff = await buildFirmWithStaff();
+    const owner = await signedIn(staff.owner);
+    expect((await owner.post('/api/staff/invitations', { email: other.technician.email, role: 'coordinator' })).status).toBe(201);
+    const path = `/api${linkFromMail(t.outbox, other.technician.email, '/invitations/')}`;
+    const v = await visitor(t.app);
+    const preview = await v.get(path);
+    expect(preview.status).toBe(200);
+    expect(preview.body.data.hasSignIn).toBe(true);
+    expect(preview.body.data.notice).toBe(
+      `${other.technician.email} already has a Mullion sign-in, and one address is one sign-in, so it cannot also join ${staff.firm.name}. Sign in with it as usual, or ask ${staff.firm.name} to invite another of your addresses.`,
+    );
+    const res = await v.post(`${path}/accept`, { name: 'Clash', password: NEW_PASSWORD });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('email_taken');
+    expect(res.body.error.message).toBe(preview.body.data.notice);
+    expect(await User.count({ where: { email: other.technician.email }, crossTenant: true })).toBe(1);
+    expect(await User.count({ where: { tenantId: other.firm.id, id: other.technician.id, email: other.technician.email } })).toBe(1);
+  });
+
+  it('a new address’s preview says it has no sign-in yet', async () => {
+    const { path } = await invited();
+    const preview = await (await visitor(t.app)).get(path);
+    expect(preview.body.data.hasSignIn).toBe(false);
+    expect(preview.body.data).not.toHaveProperty('notice');
+  });
+
   it('answers 409 email_taken when the address got a sign-in elsewhere meanwhile, and keeps the link unused', async () => {
     const { firm, email, path, invitationId } = await invited();
     const other = await buildFirmWithStaff();
@@ -194,6 +222,7 @@ describe('POST /api/invitations/:token/accept', () => {
     const res = await v.post(`${path}/accept`, { name: 'Clash', password: NEW_PASSWORD });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('email_taken');
+    expect(res.body.error.message).toMatch(/already has a Mullion sign-in/);
     const invitation = await Invitation.findOne({ where: { tenantId: firm.id, id: invitationId } });
     expect(invitation!.acceptedAt).toBeNull();
   });

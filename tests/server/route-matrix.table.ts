@@ -16,6 +16,9 @@ export const ROUTE_TABLE: Record<string, string> = {
   'POST /api/session': 'ok ok | ok ok ok | ok ok ok | ok ok',
   // signup
   'POST /api/signup': 'ok ok | ok ok ok | ok ok ok | ok ok',
+  // a sign-up waiting for its owner to confirm: public, the token is the key
+  'GET /api/signups/:token': 'ok ok | ok ok ok | ok ok ok | ok ok',
+  'POST /api/signups/:token': 'ok ok | ok ok ok | ok ok ok | ok ok',
   // password-resets
   'POST /api/password-resets': 'ok ok | ok ok ok | ok ok ok | ok ok',
   'POST /api/password-resets/:token': 'ok ok | ok ok ok | ok ok ok | ok ok',

@@ -52,7 +52,7 @@ let staffOnly: string[];
 
 beforeAll(async () => {
   b = await createBillingTestApp();
-  w = await buildWorld(b.t.app, b.t.outbox);
+  w = await buildWorld(b.t.app, b.t.outbox, () => b.t.flushMail());
   for (const caller of CALLERS) visitors[caller] = await w.signedIn(caller);
   await w.a.client.update({ notes: 'Staff note: the household is slow to pay.' });
   await w.a.site.update({ accessNotes: 'Staff note: key safe code 4471.' });

@@ -256,18 +256,34 @@ describe('POST /api/staff/invitations', () => {
     expect(mailsTo('x-role@test.example')).toHaveLength(0);
   });
 
-  it('answers 409 email_taken for an address that already has a sign-in, in any firm', async () => {
+  it('answers 409 email_taken naming the field for someone already at the inviter’s own firm', async () => {
+    const a = await buildFirmWithStaff();
+    const v = await signedIn(a.owner);
+    const res = await v.post('/api/staff/invitations', { email: a.technician.email.toUpperCase(), role: 'coordinator' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('email_taken');
+    expect(res.body.error.message).toBe(`${a.technician.email} is already on your staff. Invite another address, or change their role on the staff page.`);
+    expect(res.body.error.fields).toEqual({ email: 'This address is already on your staff.' });
+    expect(await Invitation.count({ where: { tenantId: a.firm.id } })).toBe(0);
+  });
+
+  it('invites an address with a sign-in at another firm exactly like a new address (nothing about the other firm shows)', async () => {
     const a = await buildFirmWithStaff();
     const b = await buildFirmWithStaff();
     const v = await signedIn(a.owner);
-    for (const email of [a.technician.email, b.coordinator.email.toUpperCase()]) {
-      const res = await v.post('/api/staff/invitations', { email, role: 'technician' });
-      expect(res.status).toBe(409);
-      expect(res.body.error.code).toBe('email_taken');
-      expect(res.body.error.fields).toHaveProperty('email');
-    }
-    expect(mailsTo(b.coordinator.email)).toHaveLength(0);
-    expect(await Invitation.count({ where: { tenantId: a.firm.id } })).toBe(0);
+    const elsewhere = await v.post('/api/staff/invitations', { email: b.coordinator.email.toUpperCase(), role: 'technician' });
+    const fresh = await v.post('/api/staff/invitations', { email: `fresh-${a.firm.id.slice(0, 8)}@test.example`, role: 'technician' });
+    expect(elsewhere.status).toBe(201);
+    expect(fresh.status).toBe(201);
+    expect(Object.keys(elsewhere.body.data).sort()).toEqual(Object.keys(fresh.body.data).sort());
+    expect(elsewhere.body.data).toMatchObject({ email: b.coordinator.email, role: 'technician', state: fresh.body.data.state });
+    // The same invitation e-mail goes out; what happens at acceptance is told to the invitee at the link.
+    const mail = mailsTo(b.coordinator.email).at(-1)!;
+    expect(mail.subject).toBe(`${a.firm.name} invited you to Mullion`);
+    const list = await v.get('/api/staff/invitations');
+    expect((list.body as { data: { email: string }[] }).data.map((i) => i.email)).toContain(b.coordinator.email);
+    // The other firm's person is untouched.
+    expect(await User.count({ where: { tenantId: b.firm.id, id: b.coordinator.id, email: b.coordinator.email } })).toBe(1);
   });
 
   it('replaces a pending invitation to the same address: only the newest link works', async () => {

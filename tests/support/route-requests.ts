@@ -29,6 +29,7 @@ export const ROUTE_REQUESTS: Record<string, RouteRequest> = {
   'POST /api/session': { body: (w) => ({ email: w.a.owner.email, password: 'correct horse battery' }), changesSession: true },
   'DELETE /api/session': { changesSession: true },
   'POST /api/signup': { body: () => ({ firmName: 'Signup Alarm Co', name: 'Sam Signup', email: `${unique('signup')}@test.example`, password: NEW_PASSWORD }), changesSession: true },
+  'POST /api/signups/:token': { changesSession: true },
   'POST /api/password-resets': { body: (w) => ({ email: w.a.technician.email }) },
   'POST /api/password-resets/:token': { body: () => ({ password: NEW_PASSWORD }) },
   'POST /api/invitations/:token/accept': { body: () => ({ name: 'New Person', password: NEW_PASSWORD }), changesSession: true },

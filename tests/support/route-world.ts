@@ -9,6 +9,7 @@
  */
 import type { Express } from 'express';
 import { Op } from 'sequelize';
+import { AuditEvent } from '@server/models/AuditEvent';
 import { Invitation } from '@server/models/Invitation';
 import { User } from '@server/models/User';
 import type { Floor } from '@server/models/Floor';
@@ -72,6 +73,8 @@ export interface World {
     jobPhotoId: string;
     staffInvitationId: string;
     staffInvitationToken: string;
+    /** a sign-up waiting for confirmation */
+    signUpToken: string;
     clientInvitationId: string;
   };
   b: FirmWithSite;
@@ -109,7 +112,20 @@ function expectStatus(what: string, res: { status: number; body: unknown }, stat
   if (res.status !== status) throw new Error(`${what}: expected ${status}, got ${res.status} ${JSON.stringify(res.body)}`);
 }
 
-export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<World> {
+/** `flushMail` waits for mail a request sends after answering (password resets, sign-ups). */
+export async function buildWorld(app: Express, outbox: MailMessage[], flushMail: () => Promise<void>): Promise<World> {
+  const tokenFromMail = async (to: string, marker: string) => {
+    await flushMail();
+    return linkFromMail(outbox, to, marker).split('/').pop()!;
+  };
+  let signUps = 0;
+  const askSignUp = async () => {
+    const email = `signup-${++signUps}-${Date.now()}@test.example`;
+    const anon = await visitor(app);
+    const res = await anon.post('/api/signup', { firmName: `Signup ${signUps} Alarm Co`, name: 'Sam Signup', email, password: 'a long enough password' });
+    expectStatus('sign-up asked', res, 202);
+    return tokenFromMail(email, '/sign-up/confirm/');
+  };
   const a0 = await buildFirmWithSite();
   const b = await buildFirmWithSite();
   const operator = await buildUser(null, 'operator');
@@ -143,7 +159,8 @@ export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<W
   expectStatus('job completed', await owner.post(`/api/jobs/${done.id}/transitions`, { to: 'completed' }), 200);
   const staffInv = await owner.post('/api/staff/invitations', { email: `invitee-${next()}@test.example`, role: 'technician' });
   expectStatus('staff invitation', staffInv, 201);
-  const staffInvitationToken = tokenFromMail(outbox, (staffInv.body as { data: { email: string } }).data.email, '/invitations/');
+  const staffInvitationToken = await tokenFromMail((staffInv.body as { data: { email: string } }).data.email, '/invitations/');
+  const signUpToken = await askSignUp();
   const clientInv = await owner.post(`/api/clients/${a0.client.id}/invitations`, { email: `household-${next()}@clients.example` });
   expectStatus('client invitation', clientInv, 201);
 
@@ -161,6 +178,7 @@ export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<W
     jobPhotoId: photo.body.data!.id!,
     staffInvitationId: (staffInv.body as { data: { id: string } }).data.id,
     staffInvitationToken,
+    signUpToken,
     clientInvitationId: (clientInv.body as { data: { id: string } }).data.id,
   };
 
@@ -228,7 +246,7 @@ export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<W
       case 'shortName':
         return a.firm.shortName;
       case 'token':
-        return a.staffInvitationToken;
+        return path.includes('/signups/') ? a.signUpToken : a.staffInvitationToken;
       default:
         throw new Error(`No record for the path parameter :${param} (${path}); teach tests/support/route-world.ts about it.`);
     }
@@ -283,15 +301,16 @@ export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<W
       case 'shortName':
         return a.firm.shortName;
       case 'token': {
+        if (path.includes('/signups/')) return askSignUp();
         if (path.includes('/password-resets/')) {
           const user = await buildUser(a.firm, 'technician');
           const anon = await visitor(app);
           expectStatus('password reset asked', await anon.post('/api/password-resets', { email: user.email }), 202);
-          return tokenFromMail(outbox, user.email, '/reset-password/');
+          return tokenFromMail(user.email, '/reset-password/');
         }
         const email = `invitee-${next()}@test.example`;
         expectStatus('fresh invitation', await owner.post('/api/staff/invitations', { email, role: 'technician' }), 201);
-        return tokenFromMail(outbox, email, '/invitations/');
+        return tokenFromMail(email, '/invitations/');
       }
       default:
         throw new Error(`No record for the path parameter :${param} (${path}); teach tests/support/route-world.ts about it.`);
@@ -303,6 +322,12 @@ export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<W
     await User.update(
       { deactivatedAt: new Date() },
       { where: { tenantId: a.firm.id, role: { [Op.in]: ['owner', 'coordinator', 'technician'] }, id: { [Op.notIn]: keep }, deactivatedAt: null } },
+    );
+    // The matrix sends far more invitations than a person may in an hour; it is not a test of
+    // the mail limits (mail-limits.test.ts is), so earlier sends are dated out of the window.
+    await AuditEvent.sequelize!.query(
+      `UPDATE audit_events SET createdAt = :earlier WHERE tenantId = :tenantId AND action IN ('invitation.sent', 'invitation.resent')`,
+      { replacements: { earlier: new Date(Date.now() - 2 * 60 * 60 * 1000), tenantId: a.firm.id } },
     );
     await Invitation.update(
       { revokedAt: new Date() },
@@ -336,6 +361,3 @@ export async function buildWorld(app: Express, outbox: MailMessage[]): Promise<W
   return { app, outbox, a, b, operator, userOf, signedIn, idFor, freshIdFor, tidy, uploadLogo, secretsOfA };
 }
 
-function tokenFromMail(outbox: MailMessage[], to: string, marker: string): string {
-  return linkFromMail(outbox, to, marker).split('/').pop()!;
-}

@@ -35,6 +35,17 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
+/** Limits high enough never to stop a test; a test of a limit passes its own small numbers (the rest stay high). */
+const RELAXED_LIMITS: NonNullable<AppDeps['rateLimits']> = {
+  signIn: { limit: 1000, windowMs: 60_000 },
+  signInPerIp: { limit: 1000, windowMs: 60_000 },
+  signInPerAccount: { limit: 1000, windowMs: 60_000 },
+  passwordReset: { limit: 1000, windowMs: 60_000 },
+  signUpPerIp: { limit: 1000, windowMs: 60_000 },
+  signUpPerAddress: { limit: 1000, windowMs: 60_000 },
+  invitationsPerUser: { limit: 1000, windowMs: 60_000 },
+};
+
 export async function createTestApp(
   overrides: Partial<AppDeps> = {},
   options: { mailer?: Mailer & { outbox: MailMessage[] } } = {},
@@ -58,10 +69,10 @@ export async function createTestApp(
     sessionSecret: 'test-session-secret-that-is-long-enough-123',
     secrets: createSecretBox('test-data-encryption-key-that-is-long-enough'),
     secureCookies: false,
-    rateLimits: { signIn: { limit: 1000, windowMs: 60_000 }, passwordReset: { limit: 1000, windowMs: 60_000 } },
     now: () => clock.now,
     ...overrides,
     background,
+    rateLimits: { ...RELAXED_LIMITS, ...overrides.rateLimits },
   });
   return {
     app,

@@ -13,6 +13,7 @@ import * as m20261202010000 from './20261202010000-billing';
 import * as m20261202020000 from './20261202020000-pending-checkout';
 import * as m20261205000000 from './20261205000000-life-safety-rules';
 import * as m20261205100000 from './20261205100000-mail-outbox';
+import * as m20261205200000 from './20261205200000-signup-requests';
 
 export interface Migration {
   name: string;
@@ -31,4 +32,5 @@ export const MIGRATIONS: Migration[] = [
   { name: '20261202020000-pending-checkout', ...m20261202020000 },
   { name: '20261205000000-life-safety-rules', ...m20261205000000 },
   { name: '20261205100000-mail-outbox', ...m20261205100000 },
+  { name: '20261205200000-signup-requests', ...m20261205200000 },
 ];

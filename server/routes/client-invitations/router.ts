@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express';
+import { Router, type Request, type RequestHandler } from 'express';
 import { z } from 'zod';
 import { email, uuid } from '@domain/schemas/common';
 import { scoped } from '../../context';
@@ -16,7 +16,7 @@ const invitationParams = z.object({ clientId: uuid, invitationId: uuid });
 const clientInvitationSchema = z.object({ email });
 
 /** Invitations of homeowners (role `client`) to the portal, each linked to one client record. */
-export function clientInvitationsRouter(deps: AppDeps): Router {
+export function clientInvitationsRouter(deps: AppDeps, tools: { invitationLimiter: RequestHandler }): Router {
   const router = Router();
   router.use('/clients/:clientId/invitations', requireFirm);
 
@@ -48,7 +48,7 @@ export function clientInvitationsRouter(deps: AppDeps): Router {
     res.json({ data: rows.map((r) => presentClientInvitation(r, now)), page: pageOf(1, 200, rows.length) });
   });
 
-  router.post('/clients/:clientId/invitations', validate({ params: clientParams, body: clientInvitationSchema }), async (req, res) => {
+  router.post('/clients/:clientId/invitations', tools.invitationLimiter, validate({ params: clientParams, body: clientInvitationSchema }), async (req, res) => {
     const { params, body } = inputOf(req, { params: clientParams, body: clientInvitationSchema });
     const client = await loadClient(req, params.clientId);
     authorizeRecord(req, 'create', 'Invitation', { tenantId: req.ctx.tenantId, role: 'client' }, 'invitation');
@@ -59,7 +59,7 @@ export function clientInvitationsRouter(deps: AppDeps): Router {
     res.status(201).json({ data: presentClientInvitation(invitation, now) });
   });
 
-  router.post('/clients/:clientId/invitations/:invitationId/resend', validate({ params: invitationParams }), async (req, res) => {
+  router.post('/clients/:clientId/invitations/:invitationId/resend', tools.invitationLimiter, validate({ params: invitationParams }), async (req, res) => {
     const { params } = inputOf(req, { params: invitationParams });
     const invitation = await loadInvitation(req, params.clientId, params.invitationId);
     authorizeRecord(req, 'update', 'Invitation', invitation.get({ plain: true }), 'invitation');

@@ -7,7 +7,8 @@ import type { AppDeps } from '../../deps';
 import { inputOf, validate } from '../../middlewares/validate';
 import { presentTenant } from '../../presenters/tenant';
 import { presentUser } from '../../presenters/user';
-import { acceptInvitation, findUsableInvitation } from '../../services/invitations';
+import { acceptInvitation, addressHasSignIn, findUsableInvitation } from '../../services/invitations';
+import { User } from '../../models/User';
 import { nowOf } from '../helpers';
 import { presentPublicFirm } from '../public-firms/router';
 import { signIn } from '../session/router';
@@ -19,6 +20,8 @@ export function invitationsRouter(deps: AppDeps): Router {
   router.get('/invitations/:token', validate({ params: tokenParams }), async (req, res) => {
     const { params } = inputOf(req, { params: tokenParams });
     const { invitation, tenant } = await findUsableInvitation(params.token, nowOf(deps));
+    // Only the invitee holds the link, so only they learn that their address cannot join (one address, one sign-in).
+    const hasSignIn = (await User.count({ where: { email: invitation.email }, crossTenant: true })) > 0;
     res.json({
       data: {
         firm: presentPublicFirm(tenant),
@@ -26,6 +29,7 @@ export function invitationsRouter(deps: AppDeps): Router {
         role: invitation.role,
         roleLabel: ROLE_LABELS[invitation.role],
         expiresAt: invitation.expiresAt.toISOString(),
+        ...(hasSignIn ? { hasSignIn: true, notice: addressHasSignIn(invitation.email, tenant.name).message } : { hasSignIn: false }),
       },
     });
   });

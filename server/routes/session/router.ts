@@ -11,7 +11,8 @@ import { inputOf, validate } from '../../middlewares/validate';
 import type { User } from '../../models/User';
 import { presentTenant } from '../../presenters/tenant';
 import { presentUser } from '../../presenters/user';
-import { firmSignup } from '../../services/firm-signup';
+import { confirmFirmSignup, findUsableSignup, requestFirmSignup } from '../../services/firm-signup';
+import type { SignInLimiters } from '../../middlewares/rate-limit';
 import { completePasswordReset, requestPasswordReset } from '../../services/password-resets';
 import { nowOf } from '../helpers';
 
@@ -29,7 +30,7 @@ function presentSession(user: User | null | undefined, now: Date) {
 
 export function sessionRouter(
   deps: AppDeps,
-  tools: { passport: PassportInstance; csrf: Csrf; signInLimiter: RequestHandler; resetLimiter: RequestHandler },
+  tools: { passport: PassportInstance; csrf: Csrf; signIn: SignInLimiters; resetLimiter: RequestHandler; signUpLimiters: RequestHandler[] },
 ): Router {
   const router = Router();
 
@@ -39,7 +40,7 @@ export function sessionRouter(
     res.json({ ...presentSession(req.user, nowOf(deps)), csrfToken });
   });
 
-  router.post('/session', tools.signInLimiter, validate({ body: signInSchema }), (req, res, next) => {
+  router.post('/session', ...tools.signIn.middleware, validate({ body: signInSchema }), (req, res, next) => {
     const authenticate = tools.passport.authenticate('local', (err: Error | null, user: User | false) => {
       (async () => {
         if (err) throw err;
@@ -47,6 +48,7 @@ export function sessionRouter(
         if (user.deactivatedAt) throw errors.userDeactivated();
         if (user.tenant && !canSignIn(user.tenant.state)) throw errors.firmSuspended();
         await signIn(req, user);
+        tools.signIn.forgetFailures(user.email);
         await user.update({ lastSignInAt: nowOf(deps) });
         res.json({ data: presentSession(user, nowOf(deps)) });
       })().catch(next);
@@ -58,9 +60,27 @@ export function sessionRouter(
     req.logout((err) => (err ? next(err) : res.status(204).end()));
   });
 
-  router.post('/signup', validate({ body: signUpSchema }), async (req, res) => {
+  // Sign-up answers the same whether or not the address has a sign-in; the e-mail tells its owner which.
+  router.post('/signup', ...tools.signUpLimiters, validate({ body: signUpSchema }), async (req, res) => {
     const { body } = inputOf(req, { body: signUpSchema });
-    const owner = await firmSignup(body, { sequelize: deps.sequelize, now: nowOf(deps), ip: req.ip });
+    // The work (hashing, the e-mail) runs after the answer, so its timing tells nothing either.
+    const now = nowOf(deps);
+    deps.background.run('sign-up request', () => requestFirmSignup(body, { ...deps, now }));
+    res.status(202).json({
+      data: { email: body.email, message: `Check your inbox at ${body.email} for a link to finish setting up your firm.` },
+    });
+  });
+
+  router.get('/signups/:token', validate({ params: tokenParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: tokenParams });
+    const request = await findUsableSignup(params.token, nowOf(deps));
+    res.set('Cache-Control', 'no-store');
+    res.json({ data: { firmName: request.firmName, name: request.name, email: request.email, expiresAt: request.expiresAt.toISOString() } });
+  });
+
+  router.post('/signups/:token', validate({ params: tokenParams }), async (req, res) => {
+    const { params } = inputOf(req, { params: tokenParams });
+    const owner = await confirmFirmSignup(params.token, { sequelize: deps.sequelize, now: nowOf(deps), ip: req.ip });
     await signIn(req, owner);
     res.status(201).json({ data: presentSession(owner, nowOf(deps)) });
   });
@@ -79,7 +99,9 @@ export function sessionRouter(
     validate({ params: tokenParams, body: passwordResetSchema }),
     async (req, res) => {
       const { params, body } = inputOf(req, { params: tokenParams, body: passwordResetSchema });
-      await completePasswordReset(params.token, body.password, { sequelize: deps.sequelize, now: nowOf(deps), ip: req.ip });
+      const email = await completePasswordReset(params.token, body.password, { sequelize: deps.sequelize, now: nowOf(deps), ip: req.ip });
+      // A new password clears the failed sign-ins counted against the address.
+      tools.signIn.forgetFailures(email);
       res.json({ data: { message: 'Your password is changed. Sign in with the new one.' } });
     },
   );

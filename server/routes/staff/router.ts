@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import { Op, type WhereOptions } from 'sequelize';
 import { INVITABLE_STAFF_ROLES, STAFF_ROLES } from '@domain/roles';
 import { staffInvitationSchema, staffUpdateSchema } from '@domain/schemas/staff';
@@ -18,7 +18,7 @@ import { invitationParams, staffListQuery, userParams } from './schema';
 
 const SORTABLE = { name: 'name', email: 'email', role: 'role', createdAt: 'createdAt', lastSignInAt: 'lastSignInAt' } as const;
 
-export function staffRouter(deps: AppDeps): Router {
+export function staffRouter(deps: AppDeps, tools: { invitationLimiter: RequestHandler }): Router {
   const router = Router();
   router.use('/staff', requireFirm);
 
@@ -56,7 +56,7 @@ export function staffRouter(deps: AppDeps): Router {
     res.json({ data: rows.map((r) => presentInvitation(r, now)), page: pageOf(1, 200, rows.length) });
   });
 
-  router.post('/staff/invitations', validate({ body: staffInvitationSchema }), async (req, res) => {
+  router.post('/staff/invitations', tools.invitationLimiter, validate({ body: staffInvitationSchema }), async (req, res) => {
     const { body } = inputOf(req, { body: staffInvitationSchema });
     authorizeRecord(req, 'create', 'Invitation', { tenantId: req.ctx.tenantId, role: body.role }, 'invitation');
     const now = nowOf(deps);
@@ -70,7 +70,7 @@ export function staffRouter(deps: AppDeps): Router {
     return invitation;
   }
 
-  router.post('/staff/invitations/:invitationId/resend', validate({ params: invitationParams }), async (req, res) => {
+  router.post('/staff/invitations/:invitationId/resend', tools.invitationLimiter, validate({ params: invitationParams }), async (req, res) => {
     const { params } = inputOf(req, { params: invitationParams });
     const invitation = await loadInvitation(req.ctx, params.invitationId);
     authorizeRecord(req, 'update', 'Invitation', invitation.get({ plain: true }), 'invitation');

@@ -52,6 +52,18 @@ export default function PortalAcceptInvitationPage() {
   const inv = preview.data;
   // A staff invitation opened at a portal address belongs on the staff invitation page.
   if (inv.role !== 'client') return <Navigate to={paths.invitation(token)} replace />;
+  if (inv.hasSignIn) {
+    return (
+      <PortalCard title="This address already has a sign-in">
+        <p className="text-sm">{inv.notice}</p>
+        <p className="mt-3 text-sm">
+          <Link to={paths.firmPortal.signIn(portalFirm.shortName)} className={portalLinkClass}>
+            Sign in
+          </Link>
+        </p>
+      </PortalCard>
+    );
+  }
 
   return (
     <PortalCard

@@ -34,6 +34,18 @@ export default function AcceptInvitationPage() {
     );
   }
   const inv = preview.data;
+  if (inv.hasSignIn) {
+    return (
+      <AuthCard title={`This address cannot join ${inv.firm.name}`}>
+        <p className="text-sm">{inv.notice}</p>
+        <p className="mt-4 text-sm">
+          <Link to={paths.signIn} className="font-medium text-brass-700 underline">
+            Sign in
+          </Link>
+        </p>
+      </AuthCard>
+    );
+  }
   return (
     <AuthCard
       title={`Join ${inv.firm.name}`}

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { Link, useNavigate } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { signUpSchema, type SignUpInput } from '@domain/schemas/auth';
 import { LIMITS } from '@domain/limits';
 import { paths } from '@/config/paths';
@@ -15,9 +15,9 @@ import { applyServerErrors } from '@/lib/form-errors';
 const FIELDS = ['firmName', 'name', 'email', 'password'] as const;
 
 export default function SignUpPage() {
-  const navigate = useNavigate();
   const signUp = useSignUp();
   const [formError, setFormError] = useState<string | null>(null);
+  const [sentTo, setSentTo] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({
     resolver: zodResolver(signUpSchema),
     defaultValues: { firmName: '', name: '', email: '', password: '' },
@@ -26,10 +26,29 @@ export default function SignUpPage() {
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
     signUp.mutate(values, {
-      onSuccess: () => void navigate(paths.firm.overview),
+      onSuccess: (answer) => setSentTo(answer.email),
       onError: (err) => setFormError(applyServerErrors(err, setError, FIELDS)),
     });
   });
+
+  if (sentTo) {
+    return (
+      <AuthCard title="Check your inbox">
+        <div role="status" className="space-y-4 text-sm">
+          <p>
+            Check your inbox at <strong className="break-all">{sentTo}</strong> for a link to finish setting up your firm. The link works once and expires in{' '}
+            {LIMITS.signUpConfirmationHours} hours.
+          </p>
+          <p className="text-slate-500">Nothing after a few minutes? Look in your spam folder, or check the address and sign up again.</p>
+          <p>
+            <button type="button" className="font-medium text-brass-700 underline" onClick={() => setSentTo(null)}>
+              Use another address
+            </button>
+          </p>
+        </div>
+      </AuthCard>
+    );
+  }
 
   return (
     <AuthCard title="Start your firm’s trial" intro="14 days, every feature, no card needed. You can invite your office and technicians right after.">

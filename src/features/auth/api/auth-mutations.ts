@@ -2,12 +2,27 @@ import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query
 import type { SignUpInput, AcceptInvitationInput } from '@domain/schemas/auth';
 import { api } from '@/lib/api-client';
 import { refreshSession } from '@/lib/auth';
-import type { InvitationPreview } from '@/types/api';
+import type { InvitationPreview, SignUpPreview } from '@/types/api';
 
+/** Asks for a sign-up; the answer is the same for every address: check your inbox. */
 export function useSignUp() {
+  return useMutation({
+    mutationFn: (input: SignUpInput) => api.post<{ data: { email: string; message: string } }>('/api/signup', input).then((r) => r.data),
+  });
+}
+
+export const signUpConfirmationQuery = (token: string) =>
+  queryOptions({
+    queryKey: ['signups', 'detail', token],
+    queryFn: () => api.get<{ data: SignUpPreview }>(`/api/signups/${encodeURIComponent(token)}`).then((r) => r.data),
+    retry: false,
+  });
+
+/** Confirms the address from the e-mailed link: creates the firm and opens the owner's session. */
+export function useConfirmSignUp(token: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: SignUpInput) => api.post('/api/signup', input),
+    mutationFn: () => api.post(`/api/signups/${encodeURIComponent(token)}`, {}),
     onSuccess: () => refreshSession(queryClient),
   });
 }
