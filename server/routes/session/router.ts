@@ -61,7 +61,7 @@ export function sessionRouter(
   });
 
   // Sign-up answers the same whether or not the address has a sign-in; the e-mail tells its owner which.
-  router.post('/signup', ...tools.signUpLimiters, validate({ body: signUpSchema }), async (req, res) => {
+  router.post('/signup', ...tools.signUpLimiters, validate({ body: signUpSchema }), (req, res) => {
     const { body } = inputOf(req, { body: signUpSchema });
     // The work (hashing, the e-mail) runs after the answer, so its timing tells nothing either.
     const now = nowOf(deps);
