@@ -25,7 +25,7 @@ const CONNECTIONS = 10;
 const HOST = '127.0.0.1';
 /** The concurrent-writes run: connections and seconds (issue: 64 for 60 s → no error, no time-out). */
 const WRITE_CONNECTIONS = 64;
-const WRITE_SECONDS = 60;
+const WRITE_SECONDS = Number(process.env.BENCH_WRITE_SECONDS ?? 60);
 /** Pause after the load before shutting down (see main). */
 const SETTLE_MS = 1_000;
 
@@ -106,17 +106,29 @@ interface WriteOutcome {
  * reads, as staff do; afterwards the audit log must hold exactly one entry per 200 answered.
  */
 async function concurrentWrites(baseUrl: string, owner: { cookie: string }, running: Awaited<ReturnType<typeof startServer>>): Promise<WriteOutcome> {
-  const session = (await (await fetch(`${baseUrl}/api/session`, { headers: owner })).json()) as { csrfToken: string };
+  // The CSRF token belongs with the cookie this answer sets: keep both, as a browser does.
+  const sessionAnswer = await fetch(`${baseUrl}/api/session`, { headers: owner });
+  const session = (await sessionAnswer.json()) as { csrfToken: string };
+  const jar = new Map(owner.cookie.split('; ').map((c) => c.split('=') as [string, string]));
+  for (const c of sessionAnswer.headers.getSetCookie()) {
+    const [k, v] = c.split(';')[0]!.split('=') as [string, string];
+    jar.set(k, v);
+  }
+  const cookie = [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
   const clients = (await (await fetch(`${baseUrl}/api/clients?size=50`, { headers: owner })).json()) as { data: { id: string }[] };
   if (clients.data.length === 0) throw new Error('The demo firm has no clients to edit.');
   const editsLogged = async () => {
-    const rows = await running.sequelize.query<{ count: number }>(`SELECT COUNT(*) AS count FROM AuditEvents WHERE action = 'client.updated'`, { type: QueryTypes.SELECT });
+    const rows = await running.sequelize.query<{ count: number }>(`SELECT COUNT(*) AS count FROM audit_events WHERE action = 'client.updated'`, { type: QueryTypes.SELECT });
     return Number(rows[0]?.count ?? 0);
   };
   const before = await editsLogged();
   let writesAnswered200 = 0;
+  let firstRefusal: string | undefined;
   let edit = 0;
-  const headers = { ...owner, 'x-csrf-token': session.csrfToken, 'content-type': 'application/json' };
+  const headers = { cookie, 'x-csrf-token': session.csrfToken, 'content-type': 'application/json' };
+  // One edit first, so a set-up mistake shows its answer instead of thousands of failures.
+  const probe = await fetch(`${baseUrl}/api/clients/${clients.data[0]!.id}`, { method: 'PATCH', headers, body: JSON.stringify({ notes: 'Bench edit 0' }) });
+  if (probe.status !== 200) throw new Error(`The first edit answered ${probe.status}: ${await probe.text()}`);
   const result = await autocannon({
     url: baseUrl,
     connections: WRITE_CONNECTIONS,
@@ -130,8 +142,9 @@ async function concurrentWrites(baseUrl: string, owner: { cookie: string }, runn
           const id = clients.data[edit % clients.data.length]!.id;
           return { ...req, path: `/api/clients/${id}`, headers, body: JSON.stringify({ notes: `Bench edit ${edit}` }) };
         },
-        onResponse: (status) => {
+        onResponse: (status, body) => {
           if (status === 200) writesAnswered200++;
+          else firstRefusal ??= `${status} ${body.slice(0, 200)}`;
         },
       },
       { method: 'GET', path: '/api/clients?size=25', headers: owner },
@@ -140,6 +153,7 @@ async function concurrentWrites(baseUrl: string, owner: { cookie: string }, runn
   });
   await new Promise((resolve) => setTimeout(resolve, SETTLE_MS));
   const after = await editsLogged();
+  if (firstRefusal) console.error(`First edit not answered 200: ${firstRefusal}`);
   return {
     requests: result.requests.total,
     writesAnswered200,
@@ -196,9 +210,14 @@ async function main(): Promise<number> {
     console.log(
       `${'PATCH + 2 GETs, mixed'.padEnd(48)} ${w.requestsPerSecond.toFixed(0).padStart(7)} req/s   p99 ${String(w.p99Ms).padStart(4)} ms   errors ${w.errors}   time-outs ${w.timeouts}   non-2xx ${w.non2xx}`,
     );
-    console.log(`${''.padEnd(48)} ${w.requests} requests; edits answered 200: ${w.writesAnswered200}; edits in the audit log: ${w.writesSaved}`);
-    const writesBroken = w.errors > 0 || w.timeouts > 0 || w.non2xx > 0 || w.writesSaved !== w.writesAnswered200;
-    if (writesBroken) console.error('\nConcurrent writes failed: every request must succeed and every edit answered 200 must be saved.');
+    console.log(
+      `${''.padEnd(48)} ${w.requests} requests; edits answered 200: ${w.writesAnswered200}; edits in the audit log: ${w.writesSaved} (the probe edit and those in flight at the end are saved but not counted as answered)`,
+    );
+    // Saved may exceed answered by the probe edit and by edits still in flight when the load
+    // generator hung up at the end (at most one per connection): their answers were not counted.
+    const unanswered = w.writesSaved - w.writesAnswered200;
+    const writesBroken = w.errors > 0 || w.timeouts > 0 || w.non2xx > 0 || unanswered < 0 || unanswered > 1 + WRITE_CONNECTIONS;
+    if (writesBroken) console.error('\nConcurrent writes failed: every request must succeed and every edit answered 200 must be in the audit log.');
     const slow = outcomes.filter((o) => o.p99Ms > P99_TARGET_MS);
     const failing = outcomes.filter((o) => o.failed > 0);
     for (const o of slow) console.error(`\nToo slow: ${o.name} p99 ${o.p99Ms} ms > ${P99_TARGET_MS} ms`);
