@@ -48,7 +48,7 @@ export default function ConfirmSignUpPage() {
       title={`Finish setting up ${signUp.firmName}`}
       intro={
         <>
-          You will be the firm’s owner and sign in as <strong className="break-all text-ink">{signUp.email}</strong> with the password you chose.
+          You will be the firm’s owner and sign in as <strong className="break-words text-ink">{signUp.email}</strong> with the password you chose.
         </>
       }
     >

@@ -36,7 +36,7 @@ export default function SignUpPage() {
       <AuthCard title="Check your inbox">
         <div role="status" className="space-y-4 text-sm">
           <p>
-            Check your inbox at <strong className="break-all">{sentTo}</strong> for a link to finish setting up your firm. The link works once and expires in{' '}
+            Check your inbox at <strong className="break-words">{sentTo}</strong> for a link to finish setting up your firm. The link works once and expires in{' '}
             {LIMITS.signUpConfirmationHours} hours.
           </p>
           <p className="text-slate-500">Nothing after a few minutes? Look in your spam folder, or check the address and sign up again.</p>
