@@ -1,6 +1,7 @@
 /**
  * The household’s side of the portal: a service request from a client becomes a
- * `requested` job of the firm, and every active coordinator hears about it by e-mail. A
+ * `requested` job of the firm, and every active coordinator hears about it by e-mail (the
+ * owner, when the firm has no active coordinator, so no request goes unheard). A
  * household's change to its emergency contacts is e-mailed to the owner and coordinators,
  * who confirm it with the monitoring center.
  */
@@ -28,6 +29,13 @@ function summaryOf(description: string): string {
   return firstLine.length > 200 ? `${firstLine.slice(0, 197)}…` : firstLine;
 }
 
+/** Active coordinators, or the firm's active owners when it has no coordinator. */
+async function serviceRequestRecipients(ctx: Ctx, options: { transaction: NonNullable<Ctx['transaction']> }): Promise<User[]> {
+  const active = (role: 'coordinator' | 'owner') => User.findAll({ where: scoped(ctx, { role, deactivatedAt: { [Op.is]: null } }), ...options });
+  const coordinators = await active('coordinator');
+  return coordinators.length > 0 ? coordinators : active('owner');
+}
+
 export async function requestService(
   ctx: Ctx,
   site: Site,
@@ -36,10 +44,7 @@ export async function requestService(
 ): Promise<Job> {
   const transaction = requireTransaction(ctx);
   const options = { transaction };
-  const coordinators = await User.findAll({
-    where: scoped(ctx, { role: 'coordinator', deactivatedAt: { [Op.is]: null } }),
-    ...options,
-  });
+  const coordinators = await serviceRequestRecipients(ctx, options);
   await assertMailAllowed(transaction, {
     purpose: 'service_request',
     tenantId: site.tenantId,

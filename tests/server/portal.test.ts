@@ -264,11 +264,24 @@ describe('portal: devices, service and service requests', () => {
     }
     expect(t.outbox.some((m) => m.to === gone.email)).toBe(false);
     expect(t.outbox.some((m) => m.to === f.technician.email)).toBe(false);
+    expect(t.outbox.some((m) => m.to === f.owner.email)).toBe(false);
     // the e-mail links to the job in the firm's workspace
     expect(t.outbox.find((m) => m.to === f.coordinator.email)!.text).toContain(`http://mullion.test/app/jobs/${job!.id}`);
     // another client's site → 404
     const other = await portalFixture();
     expect((await v.post(`/api/portal/sites/${other.site.id}/service-requests`, { description: 'x', preferredTimes: 'y' })).status).toBe(404);
+  });
+
+  it('reaches the owner when the firm has no active coordinator', async () => {
+    const f = await portalFixture();
+    await f.coordinator.update({ deactivatedAt: new Date() });
+    const v = await signedIn(f.clientUser);
+    const res = await v.post(`/api/portal/sites/${f.site.id}/service-requests`, { description: 'The keypad is dark.', preferredTimes: 'Any afternoon' });
+    expect(res.status).toBe(201);
+    const toOwner = t.outbox.filter((m) => m.to === f.owner.email && m.text.includes('The keypad is dark.'));
+    expect(toOwner).toHaveLength(1);
+    expect(toOwner[0]!.text).toContain(`http://mullion.test/app/jobs/${res.body.data.id}`);
+    expect(t.outbox.some((m) => m.to === f.coordinator.email && m.text.includes('The keypad is dark.'))).toBe(false);
   });
 });
 
