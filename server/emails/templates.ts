@@ -5,6 +5,7 @@
 import type { ContactSnapshot } from '@domain/contact-changes';
 import { formatPhone } from '@domain/phone';
 import { ROLE_LABELS, type Role } from '@domain/roles';
+import type { FirmBrand } from './firm-brand';
 import type { MailMessage } from './mailer';
 
 function escapeHtml(s: string): string {
@@ -60,52 +61,58 @@ export function invitationEmail(input: {
  * A homeowner's invitation to their alarm firm's portal: the firm's name, logo and colour,
  * not Mullion's — the household knows the firm, not us.
  */
-export function portalInvitationEmail(input: {
-  to: string;
-  firmName: string;
-  firmPhone: string;
-  /** the firm's accent colour, already darkened for white text */
-  accent: string;
-  logo: { content: Buffer; contentType: string } | null;
-  link: string;
-  expiresAt: Date;
-}): MailMessage {
-  const subject = `${input.firmName} invites you to see your home's alarm online`;
+export function portalInvitationEmail(input: { to: string; firm: FirmBrand; link: string; expiresAt: Date }): MailMessage {
+  const { firm } = input;
+  const subject = `${firm.name} invites you to see your home's alarm online`;
   const expires = input.expiresAt.toUTCString().replace(/:\d\d GMT$/, ' UTC');
   const lines = [
-    `${input.firmName} looks after the alarm system in your home. In their client portal you can see which doors and windows are protected, what each device is called, when batteries are due, and what was done at every visit. You can also ask for a service visit and keep your emergency contacts up to date.`,
+    `${firm.name} looks after the alarm system in your home. In their client portal you can see which doors and windows are protected, what each device is called, when batteries are due, and what was done at every visit. You can also ask for a service visit and keep your emergency contacts up to date.`,
     `Open the link and choose a password. The link works once and expires ${expires}.`,
   ];
-  const footer = `Not expecting this? Ignore this e-mail; nothing happens without you.${input.firmPhone ? ` Questions? Call ${input.firmName} on ${input.firmPhone}.` : ''}`;
-  const extension = input.logo?.contentType === 'image/png' ? 'png' : input.logo?.contentType === 'image/webp' ? 'webp' : 'jpg';
-  const accent = /^#[0-9a-f]{6}$/i.test(input.accent) ? input.accent : '#8f5c17';
-  const header = `<div style="display:flex;align-items:center;gap:12px;background:${accent};color:#ffffff;border-radius:6px;padding:12px 16px;margin-bottom:16px">${
-    input.logo ? '<img src="cid:firm-logo" alt="" width="40" height="40" style="background:#ffffff;border-radius:6px;object-fit:contain;padding:2px;margin-right:12px;vertical-align:middle">' : ''
-  }<span style="font-weight:600;font-size:18px;vertical-align:middle">${escapeHtml(input.firmName)}</span></div>`;
-  const html = layout(subject, lines, { label: 'Open my portal', href: input.link }, footer)
-    .replace('<div style="font-weight:600;font-size:18px;margin-bottom:16px">Mullion</div>', header)
-    .replace('background:#8f5c17;', `background:${accent};`);
-  return {
+  const footer = `Not expecting this? Ignore this e-mail; nothing happens without you.${firm.phone ? ` Questions? Call ${firm.name} on ${firm.phone}.` : ''}`;
+  return branded(firm, {
     to: input.to,
     subject,
     text: `${lines.join('\n\n')}\n\nOpen my portal: ${input.link}\n\n${footer}\n`,
+    html: layout(subject, lines, { label: 'Open my portal', href: input.link }, footer),
+  });
+}
+
+/** Puts the firm's name, logo and colour where Mullion's name and colour are. */
+function branded(firm: FirmBrand, message: MailMessage): MailMessage {
+  const extension = firm.logo?.contentType === 'image/png' ? 'png' : firm.logo?.contentType === 'image/webp' ? 'webp' : 'jpg';
+  const accent = /^#[0-9a-f]{6}$/i.test(firm.accent) ? firm.accent : '#8f5c17';
+  const header = `<div style="display:flex;align-items:center;gap:12px;background:${accent};color:#ffffff;border-radius:6px;padding:12px 16px;margin-bottom:16px">${
+    firm.logo ? '<img src="cid:firm-logo" alt="" width="40" height="40" style="background:#ffffff;border-radius:6px;object-fit:contain;padding:2px;margin-right:12px;vertical-align:middle">' : ''
+  }<span style="font-weight:600;font-size:18px;vertical-align:middle">${escapeHtml(firm.name)}</span></div>`;
+  const html = message.html
+    .replace('<div style="font-weight:600;font-size:18px;margin-bottom:16px">Mullion</div>', header)
+    .replace('background:#8f5c17;', `background:${accent};`);
+  return {
+    ...message,
     html,
-    ...(input.logo ? { attachments: [{ filename: `logo.${extension}`, content: input.logo.content, contentType: input.logo.contentType, cid: 'firm-logo' }] } : {}),
+    ...(firm.logo ? { attachments: [{ filename: `logo.${extension}`, content: firm.logo.content, contentType: firm.logo.contentType, cid: 'firm-logo' }] } : {}),
   };
 }
 
-export function passwordResetEmail(input: { to: string; name: string; link: string; minutes: number }): MailMessage {
-  const subject = 'Reset your Mullion password';
+/** A household's reset (`firm` given) comes from its firm's portal, in the firm's colours. */
+export function passwordResetEmail(input: { to: string; name: string; link: string; minutes: number; firm?: FirmBrand }): MailMessage {
+  const { firm } = input;
+  const subject = firm ? `Reset your password for ${firm.name}'s client portal` : 'Reset your Mullion password';
   const lines = [
     `Hello ${input.name},`,
-    `Someone asked to reset the password of this Mullion sign-in. If it was you, choose a new password within ${input.minutes} minutes; the link works once.`,
+    firm
+      ? `Someone asked to reset the password you use for ${firm.name}'s client portal. If it was you, choose a new password within ${input.minutes} minutes; the link works once.`
+      : `Someone asked to reset the password of this Mullion sign-in. If it was you, choose a new password within ${input.minutes} minutes; the link works once.`,
   ];
-  return {
+  const footer = `If it was not you, ignore this e-mail: your password stays as it is.${firm?.phone ? ` Questions? Call ${firm.name} on ${firm.phone}.` : ''}`;
+  const message: MailMessage = {
     to: input.to,
     subject,
-    text: `${lines.join('\n\n')}\n\nChoose a new password: ${input.link}\n\nIf it was not you, ignore this e-mail: your password stays as it is.\n`,
-    html: layout(subject, lines, { label: 'Choose a new password', href: input.link }, 'If it was not you, ignore this e-mail: your password stays as it is.'),
+    text: `${lines.join('\n\n')}\n\nChoose a new password: ${input.link}\n\n${footer}\n`,
+    html: layout(subject, lines, { label: 'Choose a new password', href: input.link }, footer),
   };
+  return firm ? branded(firm, message) : message;
 }
 
 /** Sent to a new address after sign-up: the link that confirms it and starts the firm's trial. */

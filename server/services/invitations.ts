@@ -8,10 +8,10 @@ import { hashPassword } from '../auth/passwords';
 import { hashToken, newToken } from '../auth/tokens';
 import { requireTenantId, requireTransaction, scoped, type Ctx } from '../context';
 import type { AppDeps } from '../deps';
-import { readableAccent } from '@domain/colour';
 import { portalPath } from '@domain/short-name';
 import { assertMailAllowed } from '../emails/mail-limits';
 import type { MailMessage } from '../emails/mailer';
+import { firmBrandOf } from '../emails/firm-brand';
 import { invitationEmail, portalInvitationEmail } from '../emails/templates';
 import { errors } from '../errors';
 import { Invitation } from '../models/Invitation';
@@ -37,20 +37,10 @@ async function queueInvitationMail(invitation: Invitation, token: string, tokenH
     });
   if (invitation.role === 'client' && tenant) {
     // A homeowner's invitation opens the firm's own portal, in the firm's colours, with its logo.
-    const logo =
-      tenant.logoFileId && tenant.logoContentType
-        ? await deps.files
-            .read(tenant.id, tenant.logoFileId)
-            .then((content) => ({ content, contentType: tenant.logoContentType! }))
-            .catch(() => null)
-        : null;
     await queue(
       portalInvitationEmail({
         to: invitation.email,
-        firmName: tenant.name,
-        firmPhone: tenant.phone || tenant.monitoringCenterPhone,
-        accent: readableAccent(tenant.accentColor),
-        logo,
+        firm: await firmBrandOf(tenant, deps.files),
         link: `${deps.appUrl}${portalPath(tenant.shortName)}/invitations/${token}`,
         expiresAt: invitation.expiresAt,
       }),

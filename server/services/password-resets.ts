@@ -5,6 +5,7 @@ import { LIMITS } from '@domain/limits';
 import { hashPassword } from '../auth/passwords';
 import { hashToken, newToken } from '../auth/tokens';
 import type { AppDeps } from '../deps';
+import { firmBrandOf } from '../emails/firm-brand';
 import { passwordResetEmail } from '../emails/templates';
 import { errors } from '../errors';
 import { PasswordReset } from '../models/PasswordReset';
@@ -22,7 +23,7 @@ const MINUTE_MS = 60 * 1000;
  */
 export async function requestPasswordReset(
   email: string,
-  deps: Pick<AppDeps, 'sequelize' | 'outbox' | 'appUrl' | 'logger'> & { now: Date },
+  deps: Pick<AppDeps, 'sequelize' | 'outbox' | 'appUrl' | 'logger' | 'files'> & { now: Date },
 ): Promise<void> {
   const user = await User.findOne({ where: { email }, crossTenant: true });
   if (!user || user.deactivatedAt) return;
@@ -33,6 +34,7 @@ export async function requestPasswordReset(
   // A homeowner resets from (and returns to) their firm's portal.
   const firm = user.role === 'client' && user.tenantId ? await Tenant.findByPk(user.tenantId) : null;
   const base = firm ? `${deps.appUrl}${portalPath(firm.shortName)}` : deps.appUrl;
+  const brand = firm ? await firmBrandOf(firm, deps.files) : null;
   await deps.sequelize.transaction(async (transaction) => {
     const { token, tokenHash } = newToken();
     const reset = await PasswordReset.create(
@@ -43,7 +45,13 @@ export async function requestPasswordReset(
       key: `password-reset:${reset.id}`,
       purpose: 'password_reset',
       tenantId: user.tenantId,
-      message: passwordResetEmail({ to: user.email, name: user.name, link: `${base}/reset-password/${token}`, minutes: LIMITS.passwordResetMinutes }),
+      message: passwordResetEmail({
+        to: user.email,
+        name: user.name,
+        link: `${base}/reset-password/${token}`,
+        minutes: LIMITS.passwordResetMinutes,
+        ...(brand ? { firm: brand } : {}),
+      }),
     });
   });
 }

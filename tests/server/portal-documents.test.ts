@@ -208,4 +208,28 @@ describe('public portal address and branded e-mails', () => {
     await t.flushMail();
     expect(linkFromMail(t.outbox, staff.email, '/reset-password/')).toMatch(/^\/reset-password\//);
   });
+
+  it('a household’s reset e-mail carries its firm’s name, colour and logo, as its invitation does; a staff member’s is Mullion’s', async () => {
+    const f = await fixture();
+    const logoId = await files.save(f.firm.id, PNG_1PX, 'png');
+    await Tenant.update({ logoFileId: logoId, logoContentType: 'image/png', accentColor: '#1f5f8b' }, { where: { id: f.firm.id } });
+    const anon = await visitor(t.app);
+    expect((await anon.post('/api/password-resets', { email: f.clientUser.email })).status).toBe(202);
+    const staff = await buildUser(f.firm, 'coordinator');
+    expect((await anon.post('/api/password-resets', { email: staff.email })).status).toBe(202);
+    await t.flushMail();
+
+    const household = t.outbox.filter((m) => m.to === f.clientUser.email).at(-1)!;
+    expect(household.subject).toBe(`Reset your password for ${f.firm.name}'s client portal`);
+    expect(household.text).toContain(`${f.firm.name}'s client portal`);
+    expect(household.html).toContain(`background:#1f5f8b;`);
+    expect(household.html).toContain('cid:firm-logo');
+    expect(household.html).not.toContain('>Mullion</div>');
+    expect(household.attachments?.[0]).toMatchObject({ cid: 'firm-logo', contentType: 'image/png' });
+
+    const own = t.outbox.filter((m) => m.to === staff.email).at(-1)!;
+    expect(own.subject).toBe('Reset your Mullion password');
+    expect(own.html).toContain('>Mullion</div>');
+    expect(own.attachments).toBeUndefined();
+  });
 });
