@@ -12,7 +12,7 @@ export interface ChecklistItem {
   done: boolean;
 }
 
-/** A visit to a site: install, service call, battery round, inspection, takeover or removal. */
+/** A visit to a site: install, service call, battery change, inspection, takeover or removal. */
 export class Job extends TenantModel<InferAttributes<Job>, InferCreationAttributes<Job>> {
   declare id: CreationOptional<string>;
   declare tenantId: string;

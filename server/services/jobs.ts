@@ -248,7 +248,7 @@ export interface TransitionOutcome {
  * Moves a job (call inside a transaction), checked by the domain's state machine: an illegal
  * move is a 409 conflict; a missing technician, reason or walk-test result is a 400 naming the
  * field. Entering in progress records the first start; completing records when and by whom,
- * and for battery rounds and service calls sets the ticked zones' battery-changed date (the
+ * and for battery changes and service calls sets the ticked zones' battery-changed date (the
  * site's today) with a change-log row each.
  */
 export async function transitionJob(ctx: Ctx, jobId: string, input: TransitionInput, now: Date): Promise<TransitionOutcome> {
@@ -270,7 +270,7 @@ export async function transitionJob(ctx: Ctx, jobId: string, input: TransitionIn
   if (batteryIds.length > 0) {
     let message: string | null = null;
     if (input.to !== 'completed') message = 'Battery changes are recorded when the job is completed.';
-    else if (!BATTERY_JOB_KINDS.includes(job.kind)) message = 'Only battery rounds and service calls record battery changes.';
+    else if (!BATTERY_JOB_KINDS.includes(job.kind)) message = 'Only battery changes and service calls record changed batteries.';
     if (message) throw errors.validation(`batteryChangedZoneIds: ${message}`, { batteryChangedZoneIds: message });
   }
   const batteryZones = await zonesOfSite(ctx, job.siteId, input.batteryChangedZoneIds ?? [], 'batteryChangedZoneIds');

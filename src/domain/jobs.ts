@@ -9,7 +9,7 @@ export type JobKind = (typeof JOB_KINDS)[number];
 export const JOB_KIND_LABELS: Record<JobKind, string> = {
   install: 'Install',
   service_call: 'Service call',
-  battery_round: 'Battery round',
+  battery_round: 'Battery change',
   inspection: 'Yearly inspection',
   takeover: 'Takeover of an existing system',
   removal: 'Removal',

@@ -36,7 +36,7 @@ describe('jobs list', () => {
     makeJob(),
     makeJob({
       id: 'j2',
-      summary: 'Battery round, spring',
+      summary: 'Battery change, spring',
       kind: 'battery_round',
       state: 'requested',
       scheduledStart: null,

@@ -1,7 +1,7 @@
 /**
  * Completing a job: the completion report (PDF) is built, kept as a document of the job shared
  * with the client, downloadable at /api/jobs/:jobId/report.pdf and e-mailed to the client with
- * the PDF attached; battery rounds and service calls set the ticked zones' battery dates.
+ * the PDF attached; battery changes and service calls set the ticked zones' battery dates.
  */
 import fs from 'node:fs';
 import path from 'node:path';

@@ -136,7 +136,7 @@ export async function seedJobs(
     );
   }
 
-  // Upcoming this week: a battery round or an inspection, some today.
+  // Upcoming this week: a battery change or an inspection, some today.
   const offset = siteIndex % 5; // today … four days ahead
   const day = new Date(today.getTime() + offset * 86_400_000);
   const kind: JobKind = siteIndex % 2 === 0 ? 'battery_round' : 'inspection';

@@ -9,7 +9,7 @@ export const documentParams = z.object({ documentId: uuid });
 export const siteParams = z.object({ siteId: uuid });
 
 /**
- * A transition, and for battery rounds and service calls completed: the zones whose battery
+ * A transition, and for battery changes and service calls completed: the zones whose battery
  * was changed (their battery-changed date becomes the completion date at the site).
  */
 export const transitionBody = jobTransitionSchema;

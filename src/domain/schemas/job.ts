@@ -42,7 +42,7 @@ export const jobPatchSchema = patchOf(jobFields.omit({ siteId: true })).superRef
 export const jobTransitionSchema = z.object({
   to: z.enum(JOB_STATES, { error: 'Choose the state to move to.' }),
   cancelReason: optionalText(500).optional(),
-  /** battery rounds and service calls, on completion: zones whose battery was changed */
+  /** battery changes and service calls, on completion: zones whose battery was changed */
   batteryChangedZoneIds: z.array(uuid).max(999, 'At most 999 zones.').optional(),
 });
 

@@ -136,7 +136,7 @@ export default function JobsPage() {
     <>
       <PageHeader
         title="Jobs"
-        context="Installs, service calls, battery rounds and inspections, with their state and technician."
+        context="Installs, service calls, battery changes and inspections, with their state and technician."
         action={
           <>
             <ButtonLink to={paths.firm.schedule} variant="secondary">
@@ -247,7 +247,7 @@ export default function JobsPage() {
           </EmptyState>
         ) : (
           <EmptyState title="No jobs yet" action={canCreate && <Button onClick={() => setCreating(true)}>Add the first job</Button>}>
-            Jobs are visits to a site: installs, service calls, battery rounds, inspections, takeovers and removals.
+            Jobs are visits to a site: installs, service calls, battery changes, inspections, takeovers and removals.
           </EmptyState>
         )
       ) : (

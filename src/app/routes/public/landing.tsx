@@ -7,7 +7,7 @@ import { OpeningSymbol } from '@/components/coverage/opening-symbol';
 
 const FOR_FIRM = [
   { icon: Cpu, title: 'Every panel and zone', text: 'Zone numbers, serials, inputs, zone types and switches — with the next free number and clashes caught before you program.' },
-  { icon: ClipboardCheck, title: 'Visits that leave a record', text: 'Installs, service calls and battery rounds with checklists, walk tests and a completion report the client receives.' },
+  { icon: ClipboardCheck, title: 'Visits that leave a record', text: 'Installs, service calls and battery changes with checklists, walk tests and a completion report the client receives.' },
   { icon: CalendarClock, title: 'Upkeep before it fails', text: 'Battery and smoke/CO end-of-life forecasts, permit expiries and contract renewals, each with its date.' },
   { icon: Users, title: 'The whole crew, one record', text: 'Owner, office and technicians each see what their role needs — on the office screen or a phone in a hallway.' },
 ];

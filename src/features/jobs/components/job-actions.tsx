@@ -54,7 +54,7 @@ export function useJobTransition(job: ApiJob) {
   return { run, error, pending: mutation.isPending, clearError: () => setError(null) };
 }
 
-/** Complete a job: for battery rounds and service calls, tick the zones whose batteries were changed. */
+/** Complete a job: for battery changes and service calls, tick the zones whose batteries were changed. */
 export function CompleteJobDialog({
   job,
   open,
