@@ -144,7 +144,7 @@ function alreadyAtFirm(member: User) {
 export function addressHasSignIn(email: string, firmName: string) {
   return errors.emailTaken(
     null,
-    `${email} already has a Mullion sign-in, and one address is one sign-in, so it cannot also join ${firmName}. Sign in with it as usual, or ask ${firmName} to invite another of your addresses.`,
+    `${email} already has a Mullion sign-in, and one address is one sign-in, so ${firmName} cannot add it as well. Sign in with it as usual, or ask ${firmName} to invite another of your addresses.`,
   );
 }
 

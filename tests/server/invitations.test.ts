@@ -197,7 +197,7 @@ describe('POST /api/invitations/:token/accept', () => {
     expect(preview.status).toBe(200);
     expect(preview.body.data.hasSignIn).toBe(true);
     expect(preview.body.data.notice).toBe(
-      `${other.technician.email} already has a Mullion sign-in, and one address is one sign-in, so it cannot also join ${staff.firm.name}. Sign in with it as usual, or ask ${staff.firm.name} to invite another of your addresses.`,
+      `${other.technician.email} already has a Mullion sign-in, and one address is one sign-in, so ${staff.firm.name} cannot add it as well. Sign in with it as usual, or ask ${staff.firm.name} to invite another of your addresses.`,
     );
     const res = await v.post(`${path}/accept`, { name: 'Clash', password: NEW_PASSWORD });
     expect(res.status).toBe(409);
